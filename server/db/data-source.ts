@@ -1,0 +1,48 @@
+import 'reflect-metadata';
+import path from 'node:path';
+import fs from 'node:fs';
+import { DataSource } from 'typeorm';
+import { loadEnv } from '../env';
+import { User } from './entities/user.entity';
+import { Production } from './entities/production.entity';
+import { Membership } from './entities/membership.entity';
+import { Invitation } from './entities/invitation.entity';
+import { PasswordReset } from './entities/password-reset.entity';
+import { SessionRow } from './entities/session.entity';
+import { MailMessage } from './entities/mail-message.entity';
+// ENTITY IMPORTS (features add theirs here)
+import { Init1764625000000 } from './migrations/1764625000000-init';
+// MIGRATION IMPORTS (features add theirs here)
+
+export const entities = [
+  User, Production, Membership, Invitation, PasswordReset, SessionRow, MailMessage,
+  // ENTITIES
+];
+export const migrations = [
+  Init1764625000000,
+  // MIGRATIONS
+];
+
+/**
+ * SQLite through better-sqlite3: WAL, a busy timeout and foreign keys on; schema by migrations, never synchronize.
+ * The same entities run on PostgreSQL given `type: 'postgres'` and a URL (migrations would then be generated for it).
+ */
+export function createDataSource(dbFile: string): DataSource {
+  fs.mkdirSync(path.dirname(dbFile), { recursive: true });
+  return new DataSource({
+    type: 'better-sqlite3',
+    database: dbFile,
+    entities,
+    migrations,
+    synchronize: false,
+    migrationsRun: false,
+    enableWAL: true,
+    prepareDatabase: (db: { pragma: (s: string) => unknown }) => {
+      db.pragma('busy_timeout = 5000');
+      db.pragma('foreign_keys = ON');
+    },
+  });
+}
+
+/** Used by the TypeORM CLI (npm run migration:generate / migration:run). */
+export default createDataSource(path.join(loadEnv().dataDir, 'app.sqlite'));

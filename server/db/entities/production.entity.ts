@@ -1,0 +1,13 @@
+import { Column, CreateDateColumn, Entity, OneToMany, PrimaryGeneratedColumn, type Relation } from 'typeorm';
+import type { Membership } from './membership.entity';
+
+@Entity('productions')
+export class Production {
+  @PrimaryGeneratedColumn({ type: 'integer' }) id: number;
+  @Column({ type: 'varchar', length: 120 }) name: string;
+  @Column({ type: 'text', default: '' }) description: string;
+  /** marks invented demo content */
+  @Column({ type: 'boolean', default: false }) isDemo: boolean;
+  @CreateDateColumn({ type: 'datetime' }) createdAt: Date;
+  @OneToMany('Membership', 'production') memberships: Relation<Membership[]>;
+}

@@ -1,0 +1,32 @@
+import { Router } from 'express';
+import type { AppContext } from '../../context';
+import { requireAuth } from '../../middleware/require-role';
+import { validate } from '../../middleware/validate';
+import { productionCreateSchema, productionUpdateSchema } from '../../../shared/schemas/auth';
+import { handle, productionRoute } from '../route-registry';
+import { ProductionsService } from './productions.service';
+
+export function productionsRouter(ctx: AppContext): Router {
+  const r = Router();
+  const svc = new ProductionsService(ctx.ds);
+
+  r.get('/productions', requireAuth, handle(async (req, res) => void res.json({ productions: await svc.listFor(req.user!) })));
+  r.post(
+    '/productions',
+    requireAuth,
+    validate(productionCreateSchema),
+    handle(async (req, res) => void res.status(201).json({ production: await svc.create(req.user!, req.body) })),
+  );
+
+  productionRoute(r, ctx, 'get', '', 'viewer', handle(async (req, res) => void res.json({ production: await svc.overview(req.membership!) })));
+  productionRoute(
+    r, ctx, 'patch', '', 'owner',
+    validate(productionUpdateSchema),
+    handle(async (req, res) => void res.json({ production: await svc.update(req.membership!, req.body) })),
+  );
+  productionRoute(r, ctx, 'delete', '', 'owner', handle(async (req, res) => {
+    await svc.remove(req.membership!);
+    res.status(204).end();
+  }));
+  return r;
+}
