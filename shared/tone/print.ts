@@ -1,0 +1,131 @@
+/**
+ * From the negative to what the eye sees: a print (paper curve, contrast grade, print exposure) or, for a
+ * sensor, a display curve; then the IEC 61966-2-1 (sRGB) encoding of the resulting grey.
+ *
+ * Print grey is the print's reflectance relative to the paper white (1 = paper white), i.e. a relative
+ * luminance, which is shown as an sRGB grey with the paper white at 255.
+ */
+import { type CharacteristicCurve, type CurveShape, density, makeCurve, netDensity, solveIncreasing } from './characteristic-curve';
+
+/** IEC 61966-2-1 sRGB encoding of a relative luminance 0..1 (clamped) → encoded value 0..1. */
+export function srgbEncode(y: number): number {
+  const v = Math.min(1, Math.max(0, y));
+  return v <= 0.0031308 ? 12.92 * v : 1.055 * v ** (1 / 2.4) - 0.055;
+}
+
+/** IEC 61966-2-1 sRGB decoding: encoded value 0..1 → relative luminance 0..1. */
+export function srgbDecode(v: number): number {
+  const e = Math.min(1, Math.max(0, v));
+  return e <= 0.04045 ? e / 12.92 : ((e + 0.055) / 1.055) ** 2.4;
+}
+
+/** An encoded sRGB value 0..1 as an 8-bit code 0..255 (rounded). */
+export function to8bit(encoded: number): number {
+  return Math.round(Math.min(1, Math.max(0, encoded)) * 255);
+}
+
+// ---------------------------------------------------------------- print
+
+/** Contrast grades accepted: −1 (the extra-soft "00") to 5 (extra hard); 2 is normal. */
+export const GRADE_RANGE: readonly [number, number] = [-1, 5];
+
+/**
+ * A generic glossy paper (Grisaille model, typical values): base 0.06, maximum density 2.10.
+ * Toe and shoulder softness in density units, as for the negative.
+ */
+export const DEFAULT_PAPER_SHAPE: CurveShape = Object.freeze({ baseFog: 0.06, dMax: 2.1, toe: 0.1, shoulder: 0.18 });
+
+/**
+ * The paper's exposure range for a contrast grade, log10 units ("ISO range" R/100): 1.10 at grade 2 and
+ * 0.20 shorter per grade harder (from memory, after the nominal grade ranges of ISO 6846).
+ */
+export function gradeRange(grade: number): number {
+  if (!Number.isFinite(grade) || grade < GRADE_RANGE[0] || grade > GRADE_RANGE[1]) {
+    throw new RangeError(`contrast grade must be between ${GRADE_RANGE[0]} and ${GRADE_RANGE[1]}`);
+  }
+  return 1.1 - 0.2 * (grade - 2);
+}
+
+/**
+ * The paper's useful exposure range of a curve, log10 units: from 0.04 above the base to 0.9 × its
+ * maximum density (the ISO 6846 style end points).
+ */
+export function paperRange(paper: CharacteristicCurve): number {
+  const lo = solveIncreasing((x) => netDensity(paper, x), 0.04);
+  const hi = solveIncreasing((x) => density(paper, x), 0.9 * paper.dMax);
+  return hi - lo;
+}
+
+/**
+ * The paper curve for a contrast grade: its gamma is set so that paperRange equals gradeRange(grade).
+ * The curve's x axis is log10 of the printing light reaching the paper (arbitrary origin: the inertia at 0).
+ */
+export function paperCurve(grade: number, shape: CurveShape = DEFAULT_PAPER_SHAPE): CharacteristicCurve {
+  const unit = makeCurve({ ...shape, gamma: 1, inertiaLogH: 0 });
+  // ranges on the x axis scale exactly as 1/gamma (the shape is fixed in density units)
+  return makeCurve({ ...shape, gamma: paperRange(unit) / gradeRange(grade), inertiaLogH: 0 });
+}
+
+/** A print: the paper curve and the log10 printing light with which it is exposed. */
+export interface PrintMapping {
+  paper: CharacteristicCurve;
+  /** log10 printing light at the paper through a negative of density 0 */
+  printLightLog: number;
+}
+
+/** The relative luminance (0..1) of the print of middle grey: 18 % of paper white. */
+export const PRINT_MIDDLE_GREY = 0.18;
+
+/**
+ * Times a print: finds the printing light that renders the negative density `greyDensity` (that of middle
+ * grey at the key exposure) as 18 % of paper white, then adds `exposureStops` stops of printing light
+ * (+ = more light = a darker print).
+ */
+export function timePrint(paper: CharacteristicCurve, greyDensity: number, exposureStops = 0): PrintMapping {
+  const xGrey = solveIncreasing((x) => netDensity(paper, x), -Math.log10(PRINT_MIDDLE_GREY));
+  if (!Number.isFinite(xGrey)) throw new RangeError('the paper cannot print middle grey');
+  return { paper, printLightLog: xGrey + greyDensity + exposureStops * Math.log10(2) };
+}
+
+/** Print density (total) for a negative of total density `negativeDensity`. */
+export function printDensity(p: PrintMapping, negativeDensity: number): number {
+  return density(p.paper, p.printLightLog - negativeDensity);
+}
+
+/** Print grey: the print's reflectance relative to paper white, 0..1, for a negative density. */
+export function printGrey(p: PrintMapping, negativeDensity: number): number {
+  return 10 ** -(printDensity(p, negativeDensity) - p.paper.baseFog);
+}
+
+// ---------------------------------------------------------------- display (sensors)
+
+/** A sensor shown on a display: linear signal clipped at `headroomStops` above middle grey, then a soft shoulder. */
+export interface DisplayCurve {
+  /** stops above middle grey at which the sensor clips */
+  headroomStops: number;
+  /** shoulder softness, stops */
+  shoulderStops: number;
+}
+
+/** Stops from middle grey to display white: log2(1 / 0.18) ≈ 2.47. */
+export const DISPLAY_WHITE_STOPS = Math.log2(1 / PRINT_MIDDLE_GREY);
+
+/** Display contrast for a grade: 1 at grade 2, ± 0.15 per grade (Grisaille's display analogue of paper grades). */
+export function displayContrast(grade: number): number {
+  gradeRange(grade);
+  return 1 + 0.15 * (grade - 2);
+}
+
+/**
+ * Display grey (relative luminance 0..1, display white = 1) of a sensor exposure `stops` from middle grey.
+ * Middle grey shows as 0.18; `exposureStops` (+ = darker) and `grade` (contrast about middle grey) act
+ * like print exposure and paper grade; above the sensor clip the signal no longer rises.
+ */
+export function displayGrey(stops: number, curve: DisplayCurve, grade = 2, exposureStops = 0): number {
+  const k = curve.shoulderStops;
+  const softplus = (z: number) => Math.max(z, 0) + Math.log1p(Math.exp(-Math.abs(z)));
+  const softmin = (a: number) => DISPLAY_WHITE_STOPS - k * softplus((DISPLAY_WHITE_STOPS - a) / k);
+  const s = Math.min(stops, curve.headroomStops) - exposureStops;
+  const o = softmin(displayContrast(grade) * s) - softmin(0);
+  return Math.min(1, PRINT_MIDDLE_GREY * 2 ** o);
+}

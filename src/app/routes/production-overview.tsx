@@ -1,0 +1,40 @@
+import { Link, useParams } from 'react-router-dom';
+import { PageHeader, Card } from '../../components/ui/card';
+import { ErrorMessage, Spinner } from '../../components/ui/alert';
+import { ZoneRamp } from '../../components/ui/zone-ramp';
+import { useProduction } from '../../features/productions/api/get-production';
+
+/** Department → where to start. Feature links are added as features land. */
+const STARTS: { title: string; text: string; to: string }[] = [
+  // OVERVIEW LINKS START
+  // OVERVIEW LINKS END
+  { title: 'Team', text: 'Members, roles, departments and invitations.', to: 'team' },
+];
+
+export default function ProductionOverviewPage() {
+  const pid = Number(useParams().productionId);
+  const q = useProduction(pid);
+  if (q.isPending) return <Spinner />;
+  if (q.isError) return <ErrorMessage error={q.error} />;
+  const p = q.data.production;
+  return (
+    <>
+      <PageHeader
+        title={p.name}
+        subtitle={<>You are {p.myRole} in {p.myDepartment}. {p.memberCount} members.{p.isDemo && ' Invented demo production.'}</>}
+      />
+      <p className="mb-6 max-w-3xl text-ink-soft">{p.description}</p>
+      <div className="mb-8 max-w-3xl"><ZoneRamp /></div>
+      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+        {STARTS.map((s) => (
+          <Link key={s.to} to={s.to}>
+            <Card className="h-full hover:border-accent">
+              <h2>{s.title}</h2>
+              <p className="mt-1 text-sm text-ink-soft">{s.text}</p>
+            </Card>
+          </Link>
+        ))}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,71 @@
+import { NavLink, Outlet, useNavigate, useParams } from 'react-router-dom';
+import { useMe } from '../../features/auth/api/get-me';
+import { useSignOut } from '../../features/auth/api/sign-out';
+import { useProductions } from '../../features/productions/api/get-productions';
+import { Logo } from '../ui/logo';
+
+const navCls = ({ isActive }: { isActive: boolean }) =>
+  `rounded-md px-2.5 py-1 text-sm ${isActive ? 'bg-ink text-paper' : 'text-ink-soft hover:bg-paper-sunk'}`;
+
+/** Production-level pages, in menu order. Features add their entries here. */
+const PRODUCTION_NAV: { to: string; label: string; end?: boolean }[] = [
+  { to: '', label: 'Overview', end: true },
+  // NAV START
+  // NAV END
+  { to: 'team', label: 'Team' },
+];
+
+export function AppShell() {
+  const me = useMe();
+  const productions = useProductions();
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  const { productionId } = useParams();
+  const pid = Number(productionId ?? 0);
+  const user = me.data?.user;
+
+  return (
+    <div className="min-h-screen">
+      <header className="no-print sticky top-0 z-20 border-b border-paper-line bg-paper/95 backdrop-blur">
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-3 px-4 py-2">
+          <NavLink to="/" className="flex items-center gap-2 font-semibold tracking-tight" aria-label="Grisaille, all productions">
+            <Logo /> Grisaille
+          </NavLink>
+          <label className="sr-only" htmlFor="production-switcher">Production</label>
+          <select
+            id="production-switcher"
+            className="max-w-[16rem] rounded-md border border-paper-line bg-paper-raised px-2 py-1 text-sm"
+            value={pid || ''}
+            onChange={(e) => navigate(e.target.value ? `/p/${e.target.value}` : '/')}
+          >
+            <option value="">All productions…</option>
+            {productions.data?.productions.map((p) => (
+              <option key={p.id} value={p.id}>{p.name}</option>
+            ))}
+          </select>
+          {pid > 0 && (
+            <nav className="flex flex-wrap gap-1" aria-label="Production">
+              {PRODUCTION_NAV.map((n) => (
+                <NavLink key={n.label} to={`/p/${pid}${n.to ? '/' + n.to : ''}`} end={n.end} className={navCls}>{n.label}</NavLink>
+              ))}
+            </nav>
+          )}
+          <div className="ml-auto flex items-center gap-2 text-sm">
+            {user?.isAdmin && me.data?.demo && <NavLink to="/admin/outbox" className={navCls}>Outbox</NavLink>}
+            <span className="text-ink-mute" title={user?.email}>{user?.name}</span>
+            <button
+              type="button"
+              className="rounded-md px-2.5 py-1 text-ink-soft hover:bg-paper-sunk"
+              onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}
+            >
+              Sign out
+            </button>
+          </div>
+        </div>
+      </header>
+      <main className="mx-auto max-w-7xl px-4 py-6">
+        <Outlet />
+      </main>
+    </div>
+  );
+}

@@ -1,0 +1,89 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import net from 'node:net';
+import { chromium, type Browser, type Page } from 'playwright-core';
+
+/** Where browser tests save their screenshots (ignored by git). */
+export const SHOTS_DIR = path.resolve('test-output/screenshots');
+
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.listen(0, '127.0.0.1', () => {
+      const a = s.address();
+      const port = typeof a === 'object' && a ? a.port : 0;
+      s.close(() => resolve(port));
+    });
+    s.on('error', reject);
+  });
+}
+
+export interface RunningApp {
+  url: string;
+  dataDir: string;
+  stop(): Promise<void>;
+}
+
+/** Starts the real built app (dist/ must exist: `npm run build`) on a free port with a temporary DATA_DIR. */
+export async function startServer(): Promise<RunningApp> {
+  if (!fs.existsSync('dist/index.html')) throw new Error('dist/ is missing: run `npm run build` before the browser tests');
+  const port = await freePort();
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'grisaille-e2e-'));
+  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    env: { ...process.env, PORT: String(port), DATA_DIR: dataDir, NODE_ENV: 'test', AUTH_RATE_LIMIT: '10000' },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let log = '';
+  child.stdout!.on('data', (d) => (log += d));
+  child.stderr!.on('data', (d) => (log += d));
+  const url = `http://127.0.0.1:${port}`;
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    if (child.exitCode !== null) throw new Error(`server exited early:\n${log}`);
+    try {
+      const r = await fetch(`${url}/api/health`);
+      if (r.ok) break;
+    } catch {
+      /* not up yet */
+    }
+    if (Date.now() > deadline) throw new Error(`server did not start:\n${log}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  return {
+    url,
+    dataDir,
+    async stop() {
+      child.kill('SIGTERM');
+      await new Promise((r) => setTimeout(r, 300));
+      if (child.exitCode === null) child.kill('SIGKILL');
+      fs.rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Debian's Chromium, headless, through playwright-core. */
+export async function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
+      '--disable-component-update', '--disable-sync', '--enable-unsafe-swiftshader'],
+  });
+}
+
+export async function shot(page: Page, name: string): Promise<string> {
+  fs.mkdirSync(SHOTS_DIR, { recursive: true });
+  const file = path.join(SHOTS_DIR, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}
+
+/** Signs in through the real form. */
+export async function signIn(page: Page, url: string, email: string, password = 'grisaille-demo'): Promise<void> {
+  await page.goto(`${url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+}
