@@ -30,20 +30,27 @@ export function to8bit(encoded: number): number {
 export const GRADE_RANGE: readonly [number, number] = [-1, 5];
 
 /**
- * A generic glossy paper (Grisaille model, typical values): base 0.06, maximum density 2.10.
- * Toe and shoulder softness in density units, as for the negative.
+ * A generic glossy paper (Grisaille model, typical values): base 0.06, maximum density 2.10, a long toe
+ * (the highlights' gentle roll-off) and a short shoulder. Softness in density units, as for the negative.
  */
-export const DEFAULT_PAPER_SHAPE: CurveShape = Object.freeze({ baseFog: 0.06, dMax: 2.1, toe: 0.1, shoulder: 0.18 });
+export const DEFAULT_PAPER_SHAPE: CurveShape = Object.freeze({ baseFog: 0.06, dMax: 2.1, toe: 0.3, shoulder: 0.1 });
+
+/** Paper exposure range at grade 2, log10 units (Grisaille model value, see gradeRange). */
+export const GRADE_2_RANGE = 1.6;
+/** Contrast (gamma) step between neighbouring grades (Grisaille model value). */
+export const GRADE_GAMMA_STEP = 1.2;
 
 /**
- * The paper's exposure range for a contrast grade, log10 units ("ISO range" R/100): 1.10 at grade 2 and
- * 0.20 shorter per grade harder (from memory, after the nominal grade ranges of ISO 6846).
+ * The paper's exposure range for a contrast grade, log10 units (end points as in paperRange). Model values:
+ * 1.6 at grade 2, chosen so that a negative developed to the ISO 6 contrast prints its zones II..IX close to
+ * the print greys the zone system usually gives them (common practice, from memory); each grade harder
+ * divides the range (multiplies the paper gamma) by 1.2. Harder grade = shorter range = more contrast.
  */
 export function gradeRange(grade: number): number {
   if (!Number.isFinite(grade) || grade < GRADE_RANGE[0] || grade > GRADE_RANGE[1]) {
     throw new RangeError(`contrast grade must be between ${GRADE_RANGE[0]} and ${GRADE_RANGE[1]}`);
   }
-  return 1.1 - 0.2 * (grade - 2);
+  return GRADE_2_RANGE / GRADE_GAMMA_STEP ** (grade - 2);
 }
 
 /**
@@ -110,10 +117,10 @@ export interface DisplayCurve {
 /** Stops from middle grey to display white: log2(1 / 0.18) ≈ 2.47. */
 export const DISPLAY_WHITE_STOPS = Math.log2(1 / PRINT_MIDDLE_GREY);
 
-/** Display contrast for a grade: 1 at grade 2, ± 0.15 per grade (Grisaille's display analogue of paper grades). */
+/** Display contrast for a grade: 1 at grade 2, × 1.2 per grade harder, like the paper (Grisaille model). */
 export function displayContrast(grade: number): number {
   gradeRange(grade);
-  return 1 + 0.15 * (grade - 2);
+  return GRADE_GAMMA_STEP ** (grade - 2);
 }
 
 /**

@@ -7,6 +7,7 @@ import { createApp, type GrisailleApp } from '../../server/app';
 import { Production } from '../../server/db/entities/production.entity';
 import { DEMO_PASSWORD, DEMO_PRODUCTION_NAME } from '../../server/db/seed';
 import { MailMessage } from '../../server/db/entities/mail-message.entity';
+import type { Env } from '../../server/env';
 
 export type Agent = ReturnType<typeof request.agent> & { csrfToken: string };
 
@@ -17,13 +18,14 @@ export interface TestApp extends GrisailleApp {
   agent(email?: string, password?: string): Promise<Agent>;
   /** messages in the fake outbox, newest first */
   outbox(): Promise<MailMessage[]>;
+  linkIn(text: string, prefix: string): string;
 }
 
 /** The real app on a temporary SQLite file (demo production seeded unless seed: false). */
-export async function startTestApp(opts: { seed?: boolean } = {}): Promise<TestApp> {
+export async function startTestApp(opts: { seed?: boolean; env?: Partial<Env> } = {}): Promise<TestApp> {
   process.env.NODE_ENV = 'test';
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'grisaille-test-'));
-  const g = await createApp({ env: { dataDir, demo: true, nodeEnv: 'test', authRateLimit: 10_000, publicUrl: 'http://localhost:5178' }, seed: opts.seed ?? true, serveClient: false });
+  const g = await createApp({ env: { dataDir, demo: true, nodeEnv: 'test', authRateLimit: 10_000, publicUrl: 'http://localhost:5178', ...opts.env }, seed: opts.seed ?? true, serveClient: false });
   const prod = await g.ctx.ds.getRepository(Production).findOneBy({ name: DEMO_PRODUCTION_NAME });
   const app: Express = g.app;
   return {
@@ -42,6 +44,12 @@ export async function startTestApp(opts: { seed?: boolean } = {}): Promise<TestA
         a.set('X-CSRF-Token', a.csrfToken);
       }
       return a;
+    },
+    /** the link a mail carries, e.g. /invitation/<token> */
+    linkIn(text: string, prefix: string) {
+      const m = text.match(new RegExp(`http://localhost:5178${prefix}([A-Za-z0-9_-]+)`));
+      if (!m) throw new Error(`no ${prefix} link in: ${text}`);
+      return m[1];
     },
     outbox: () => g.ctx.ds.getRepository(MailMessage).find({ order: { id: 'DESC' } }),
     async close() {
