@@ -1,4 +1,4 @@
-import { lazy, Suspense, type ComponentType } from 'react';
+import { lazy, Suspense, type ComponentType, type JSX } from 'react';
 import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
 import { AppShell } from '../components/layouts/app-shell';
 import { RequireSignIn } from './require-sign-in';
@@ -6,7 +6,7 @@ import { RouteError } from './route-error';
 import { Spinner } from '../components/ui/alert';
 
 /** Pages load lazily; each route has its own error boundary. */
-function page(load: () => Promise<{ default: ComponentType }>): RouteObject {
+function page(load: () => Promise<{ default: ComponentType }>): { element: JSX.Element; errorElement: JSX.Element } {
   const C = lazy(load);
   return {
     element: (
