@@ -3,6 +3,7 @@ import { PageHeader, Card } from '../../components/ui/card';
 import { ErrorMessage, Spinner } from '../../components/ui/alert';
 import { ZoneRamp } from '../../components/ui/zone-ramp';
 import { useProduction } from '../../features/productions/api/get-production';
+import { ProductionSettings } from '../../features/productions/components/production-settings';
 
 /** Department → where to start. Feature links are added as features land. */
 const STARTS: { title: string; text: string; to: string }[] = [
@@ -35,6 +36,7 @@ export default function ProductionOverviewPage() {
           </Link>
         ))}
       </div>
+      {p.myRole === 'owner' && <div className="mt-10"><ProductionSettings production={p} /></div>}
     </>
   );
 }
