@@ -26,6 +26,15 @@ for (const f of files) {
     console.log(`${name}: ${v} ${unit}`);
   });
 }
-fs.writeFileSync('bench-results.json', JSON.stringify({ at: new Date().toISOString(), node: process.version, figures }, null, 2));
+// a filtered run keeps the figures of the benches it did not run
+let kept: typeof figures = [];
+if (only.length && fs.existsSync('bench-results.json')) {
+  try {
+    kept = (JSON.parse(fs.readFileSync('bench-results.json', 'utf8')).figures as typeof figures).filter((f) => !files.includes(f.bench));
+  } catch {
+    kept = [];
+  }
+}
+fs.writeFileSync('bench-results.json', JSON.stringify({ at: new Date().toISOString(), node: process.version, figures: [...kept, ...figures] }, null, 2));
 console.log(`wrote bench-results.json (${figures.length} figures)`);
 process.exit(0);

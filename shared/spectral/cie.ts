@@ -52,6 +52,14 @@ export const CMF: { readonly x: Spectrum; readonly y: Spectrum; readonly z: Spec
   z: toGrid(observer.startNm, observer.stepNm, observer.values.z),
 });
 
+/** The full observer table (360–830 nm at 5 nm) and its grid samples, for the integration rule. */
+export const CMF_TABLE = Object.freeze({
+  startNm: observer.startNm,
+  stepNm: observer.stepNm,
+  values: observer.values,
+  onGrid: { x: CMF.x.values, y: CMF.y.values, z: CMF.z.values },
+});
+
 /** CIE daylight components S0, S1, S2 on the grid (relative power, S0 = 100 at 560 nm; CIE 015:2018). */
 export const DAYLIGHT_COMPONENTS: { readonly s0: Spectrum; readonly s1: Spectrum; readonly s2: Spectrum } = Object.freeze({
   s0: toGrid(daylight.startNm, daylight.stepNm, daylight.values.s0),

@@ -6,6 +6,8 @@
  * Negatives: the film is exposed at the rated EI (box speed · 2^ratingStops) under the key light, so a
  * middle grey gets H = q·0.18·C / (π·EI) lux·s (ISO 2720 incident metering); the print is timed so that
  * zone V prints at 18 % of paper white, then moved by the print exposure.
+ * Sensors use the display curve (grade = contrast, print exposure = display exposure); the eye is shown
+ * linearly (Y = m, sRGB-encoded; print exposure applies, grade does not).
  * Effective thresholds: rating slower, or pushing (its real speed gain), gives the shadows that many
  * more stops of room; a sensor rated slower loses as much highlight headroom as it gains shadow room.
  */
@@ -44,6 +46,7 @@ export interface ToneSettingsLike {
   highlightRollOffStops: number | null;
 }
 
+/** Normal development, box rating, grade 2, no print correction, the medium's thresholds. */
 export const DEFAULT_TONE_SETTINGS: ToneSettingsLike = Object.freeze({
   developmentStops: 0,
   ratingStops: 0,
@@ -56,7 +59,10 @@ export const DEFAULT_TONE_SETTINGS: ToneSettingsLike = Object.freeze({
 export interface TonePipelineOptions {
   mediumId: string;
   settings?: Partial<ToneSettingsLike>;
-  /** stops every tone is moved by: the key placement (see zones keyOffsetStops); default 0 */
+  /**
+   * stops every tone is moved by: the key placement, keyOffsetStops(keyStops, keyZone) from zones.ts, where
+   * keyStops is the key swatch's medium stops (0 for middle grey); default 0
+   */
   offsetStops?: number;
   /** box speed override (else the medium's default) */
   boxSpeed?: number;

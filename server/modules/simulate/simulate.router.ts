@@ -1,0 +1,42 @@
+import { Router } from 'express';
+import type { AppContext } from '../../context';
+import { requireAuth } from '../../middleware/require-role';
+import { validate } from '../../middleware/validate';
+import { simulateRequestSchema, type SimulateRequest } from '../../../shared/schemas/simulate';
+import { UPSAMPLE_METHOD } from '../../../shared/spectral/upsample-table';
+import { handle } from '../route-registry';
+import { libraryListing, runSimulation, upsampleTableBytes } from './simulate.service';
+
+/**
+ * Signed-in only (docs/api-simulate.md):
+ *   POST /api/simulate                 light, filters, medium, swatches → tones
+ *   GET  /api/library                  the built-in lights, filters and media with their curves
+ *   GET  /api/library/upsample-table   the spectral upsampling table, binary
+ */
+export function simulateRouter(ctx: AppContext): Router {
+  const r = Router();
+  r.post(
+    '/simulate',
+    requireAuth,
+    validate(simulateRequestSchema),
+    handle(async (req, res) => {
+      res.json(await runSimulation(ctx.env.dataDir, req.body as SimulateRequest));
+    }),
+  );
+  r.get('/library', requireAuth, (_req, res) => {
+    res.set('Cache-Control', 'private, max-age=3600');
+    res.json(libraryListing());
+  });
+  r.get(
+    '/library/upsample-table',
+    requireAuth,
+    handle(async (_req, res) => {
+      const bytes = await upsampleTableBytes(ctx.env.dataDir);
+      res.set('Content-Type', 'application/octet-stream');
+      res.set('Cache-Control', 'private, max-age=86400');
+      res.set('ETag', `"upsample-r${UPSAMPLE_METHOD.resolution}-v${UPSAMPLE_METHOD.version}"`);
+      res.send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+    }),
+  );
+  return r;
+}

@@ -1,0 +1,69 @@
+/**
+ * POST /api/simulate and the built-in library, over the spectral engine (shared/spectral).
+ * Engine input errors become 400s naming the field path; see docs/api-simulate.md.
+ */
+import type { SimulateRequest, SimulateResponse } from '../../../shared/schemas/simulate';
+import { resolveFilter, resolveLight, resolveMedium, simulate } from '../../../shared/spectral/compute';
+import { SpectralInputError } from '../../../shared/spectral/errors';
+import { LIBRARY_FILTERS, LIBRARY_LIGHTS, LIBRARY_MEDIA, type LibraryKind } from '../../../shared/spectral/library';
+import { GRID_SHAPE } from '../../../shared/spectral/policy';
+import type { Spectrum } from '../../../shared/spectral/spectrum';
+import { UPSAMPLE_METHOD } from '../../../shared/spectral/upsample-table';
+import { InvalidError } from '../../errors';
+import { getUpsampleTable, getUpsampleTableBytes } from '../../services/upsample-table';
+
+/** One built-in item as GET /api/library answers it. */
+export interface LibraryItemView {
+  id: string;
+  kind: LibraryKind;
+  name: string;
+  description: string;
+  generic: boolean;
+  note: string;
+  /** the source form (light / filter source of shared/schemas/simulate.ts; media: model or cmf) */
+  definition: unknown;
+  /** 81 samples on the grid, 380–780 nm at 5 nm (lights and media peak 1; filters transmittance) */
+  values: number[];
+}
+
+/** Answer of GET /api/library. */
+export interface LibraryView {
+  grid: { startNm: number; endNm: number; stepNm: number };
+  items: LibraryItemView[];
+  upsample: { name: string; source: string; version: number; resolution: number };
+}
+
+const round = (s: Spectrum) => Array.from(s.values, (v) => Number(v.toPrecision(6)));
+
+let libraryView: LibraryView | null = null;
+
+/** The built-in library with curves (computed once). */
+export function libraryListing(): LibraryView {
+  libraryView ??= {
+    grid: { ...GRID_SHAPE },
+    items: [
+      ...LIBRARY_LIGHTS.map((i) => ({ ...i, kind: 'light' as const, values: round(resolveLight({ id: i.id })) })),
+      ...LIBRARY_FILTERS.map((i) => ({ ...i, kind: 'filter' as const, values: round(resolveFilter({ id: i.id })) })),
+      ...LIBRARY_MEDIA.map((i) => ({ ...i, kind: 'medium' as const, values: round(resolveMedium({ id: i.id })) })),
+    ].map(({ id, kind, name, description, generic, note, definition, values }) => ({ id, kind, name, description, generic, note, definition, values })),
+    upsample: { name: UPSAMPLE_METHOD.name, source: UPSAMPLE_METHOD.source, version: UPSAMPLE_METHOD.version, resolution: UPSAMPLE_METHOD.resolution },
+  };
+  return libraryView;
+}
+
+/** Runs a validated simulate request; engine input errors → InvalidError with the field path. */
+export async function runSimulation(dataDir: string, request: SimulateRequest): Promise<SimulateResponse> {
+  const needsTable = request.swatches.some((s) => s.reflectance === undefined);
+  const table = needsTable ? await getUpsampleTable(dataDir) : null;
+  try {
+    return simulate(request, table);
+  } catch (err) {
+    if (err instanceof SpectralInputError) throw new InvalidError(err.message, err.field);
+    throw err;
+  }
+}
+
+/** The upsampling table's bytes for the browser. */
+export function upsampleTableBytes(dataDir: string): Promise<Uint8Array> {
+  return getUpsampleTableBytes(dataDir);
+}

@@ -1,0 +1,250 @@
+/**
+ * The computation of DESIGN.md §3, and the engine's entry points for other features.
+ *
+ *   resolveLight(src) / resolveFilter(src) / resolveMedium(src)   schema-validated sources → spectra
+ *   resolveStack({ light, filters, medium })                       sources → a prepared Stack
+ *   prepareStack({ light, filters, medium })                       spectra → a prepared Stack
+ *   resolveSwatch(src, table)                                      swatch source → { name, reflectance, estimated }
+ *   filterFactor(light, filters, medium)                           → { factor, stops, opaque }
+ *   simulateSwatches(stack, swatches)                              → { filterFactor, filterStops, opaque, white, swatches[] }
+ *   simulate(request, table)                                       POST /api/simulate in one call
+ *   reflectanceFromSrgb(hexOrRgb, table)                           (estimate.ts) estimated reflectance of a colour
+ *   buildToneLut(stack, table, size = 33)                          (lut.ts) Float32Array of m over linear sRGB,
+ *                                                                  index ((ri·size)+gi)·size+bi, node i = i/(size−1)
+ *
+ * Model, for a surface ρ, light E, filters T = ΠTᵢ, medium S (all on the 380–780 nm grid):
+ *   XYZ: CIE 1931 2° under E, Y = 100 for the perfect white; L*a*b* against that white (the eye sees
+ *     the lit scene, not the lens filters);
+ *   filter factor F = ∫ E·S / ∫ E·T·S, filter stops = log2 F; opaque when stops > 10;
+ *   exposure m = ∫ ρ·E·T·S / ∫ E·T·S (opened up by F; a neutral grey reads the same through any filter);
+ *   integrals by the rule of policy.ts, reduced to 81 weights per stack (integrate.ts);
+ *   stops = log2(m / 0.18); eyeStops = log2((Y/100) / 0.18); shift = stops − eyeStops;
+ *   zone = 5 + stops, clamped to 0..10 (continuous; round it for the Roman numeral).
+ * Logs are floored at 20 stops below middle grey (limits.ts) so black stays finite.
+ */
+import type { FilterSource, LightSource, MediumSource, SimulateRequest, SimulateResponse, SwatchResultView, SwatchSource } from '../schemas/simulate';
+import { filterFromPairs, lightFromPairs, mediumFromPairs, reflectanceFromPairs } from './bases';
+import { xyzToLab } from './colour';
+import { SpectralInputError, within } from './errors';
+import { reflectanceFromLab, reflectanceFromSrgb } from './estimate';
+import { bandPass, longPass, neutralDensity, notch, shortPass, stackFilters } from './filters';
+import { integrationWeights, observerWeights, tristimulusWeights, type Xyz } from './integrate';
+import { kindOfId, libraryFilter, libraryLight, libraryMedium } from './library';
+import { blackbody, cieIlluminant, daylight, lightThroughGel, whiteLed } from './lights';
+import { FLOOR_STOPS, MAX_FILTER_STOPS, MIDDLE_GREY, OPAQUE_LIMIT_STOPS } from './limits';
+import { eyeMedium, mediumFromModel } from './media';
+import { GRID_SIZE } from './policy';
+import { constantSpectrum, multiply, onGrid, type Spectrum } from './spectrum';
+import type { UpsampleTable } from './upsample-table';
+
+export { reflectanceFromSrgb } from './estimate';
+export { buildToneLut } from './lut';
+
+function unknownId(id: string, want: string): SpectralInputError {
+  const kind = kindOfId(id);
+  return new SpectralInputError(kind ? `"${id}" is a built-in ${kind}, not a ${want}` : `there is no built-in ${want} "${id}"`, ['id']);
+}
+
+/** A filter source (schema form) → transmittance 0..1 on the grid. Errors carry the path inside the source. */
+export function resolveFilter(src: FilterSource): Spectrum {
+  if (src.samples !== undefined) return within(['samples'], () => filterFromPairs(src.samples, src.basis));
+  if (src.id !== undefined) {
+    const item = libraryFilter(src.id);
+    if (!item) throw unknownId(src.id, 'filter');
+    return resolveFilter(item.definition);
+  }
+  if (src.longPass) return longPass(src.longPass);
+  if (src.shortPass) return shortPass(src.shortPass);
+  if (src.bandPass) return bandPass(src.bandPass);
+  if (src.notch) return notch(src.notch);
+  if (src.neutralDensity !== undefined) return neutralDensity(src.neutralDensity);
+  throw new SpectralInputError('a filter needs one of samples, id, longPass, shortPass, bandPass, notch, neutralDensity');
+}
+
+/** A light source (schema form) → relative power on the grid, peak 1, gels applied. */
+export function resolveLight(src: LightSource): Spectrum {
+  let e: Spectrum;
+  if (src.cie !== undefined) e = within(['cie'], () => cieIlluminant(src.cie!));
+  else if (src.daylight !== undefined) e = within(['daylight'], () => daylight(src.daylight!));
+  else if (src.blackbody !== undefined) e = within(['blackbody'], () => blackbody(src.blackbody!));
+  else if (src.samples !== undefined) e = within(['samples'], () => lightFromPairs(src.samples));
+  else if (src.led !== undefined) e = within(['led'], () => whiteLed(src.led!));
+  else if (src.id !== undefined) {
+    const item = libraryLight(src.id);
+    if (!item) throw unknownId(src.id, 'light');
+    e = resolveLight(item.definition);
+  } else throw new SpectralInputError('a light needs one of cie, daylight, blackbody, samples, id, led');
+  if (src.gels?.length) {
+    const gels = src.gels.map((g, i) => within(['gels', i], () => resolveFilter(g)));
+    e = within(['gels'], () => lightThroughGel(e, ...gels));
+  }
+  return e;
+}
+
+/** A medium source (schema form) → relative sensitivity per unit energy on the grid, peak 1. */
+export function resolveMedium(src: MediumSource): Spectrum {
+  if (src.samples !== undefined) return within(['samples'], () => mediumFromPairs(src.samples, src.basis));
+  if (src.id !== undefined) {
+    const item = libraryMedium(src.id);
+    if (!item) throw unknownId(src.id, 'medium');
+    return 'cmf' in item.definition ? eyeMedium() : mediumFromModel(item.definition.model);
+  }
+  throw new SpectralInputError('a medium needs one of samples, id');
+}
+
+/** A surface ready to simulate. */
+export interface ResolvedSwatch {
+  name: string;
+  /** reflectance 0..1 on the grid */
+  reflectance: Spectrum;
+  /** true when estimated from a colour value (no measured spectrum) */
+  estimated: boolean;
+}
+
+/**
+ * A swatch source → reflectance. Measured reflectance is used as given; colour values are estimated
+ * with the upsampling table (required for them; pass null when only measured swatches can occur).
+ */
+export function resolveSwatch(src: SwatchSource, table: UpsampleTable | null): ResolvedSwatch {
+  const name = src.name;
+  if (src.reflectance !== undefined) return { name, reflectance: within(['reflectance'], () => reflectanceFromPairs(src.reflectance, src.basis)), estimated: false };
+  const need = () => {
+    if (!table) throw new Error('resolveSwatch: a colour swatch needs the upsampling table');
+    return table;
+  };
+  if (src.srgb !== undefined) return { name, reflectance: within(['srgb'], () => reflectanceFromSrgb(src.srgb!, need())), estimated: true };
+  if (src.rgb !== undefined) return { name, reflectance: within(['rgb'], () => reflectanceFromSrgb(src.rgb!.map((v) => v / 255) as [number, number, number], need())), estimated: true };
+  if (src.lab !== undefined) return { name, reflectance: within(['lab'], () => reflectanceFromLab(src.lab!, need())), estimated: true };
+  throw new SpectralInputError('a swatch needs one of reflectance, srgb, rgb, lab');
+}
+
+/** A filter factor: multiplier F, stops log2 F, and whether the stack is effectively opaque. */
+export interface FilterFactor {
+  /** F = ∫ E·S / ∫ E·T·S (≥ 1 for passive filters), capped at 2^40 */
+  factor: number;
+  /** log2 F, stops, capped at 40 */
+  stops: number;
+  /** stops > OPAQUE_LIMIT_STOPS (10): the filter passes almost nothing this medium sees */
+  opaque: boolean;
+}
+
+function factorFrom(sumES: number, sumETS: number): FilterFactor {
+  const stops = sumETS > 0 ? Math.min(MAX_FILTER_STOPS, Math.log2(sumES / sumETS)) : MAX_FILTER_STOPS;
+  return { factor: 2 ** stops, stops, opaque: stops > OPAQUE_LIMIT_STOPS };
+}
+
+const EYE = eyeMedium().values;
+/** True when the medium is the CIE ȳ (the reference medium). */
+function isEye(medium: Spectrum): boolean {
+  const v = medium.values;
+  for (let i = 0; i < GRID_SIZE; i++) if (Math.abs(v[i] - EYE[i]) > 1e-12) return false;
+  return true;
+}
+
+/**
+ * Integration weights of E·T·S (integrate.ts); the eye medium is integrated by the observer's own
+ * rule, so its tones equal Y exactly.
+ */
+function exposureWeights(light: Spectrum, transmission: Spectrum, medium: Spectrum): Float64Array {
+  return isEye(medium) ? observerWeights(multiply(light, transmission))[1] : integrationWeights(light, transmission, medium);
+}
+
+/** Filter factor of `filters` for `light` on `medium` (grid spectra), in stops and as a multiplier. */
+export function filterFactor(light: Spectrum, filters: readonly Spectrum[], medium: Spectrum): FilterFactor {
+  const l = onGrid(light);
+  const m = onGrid(medium);
+  const sum = (w: Float64Array) => w.reduce((a, v) => a + v, 0);
+  const a = sum(exposureWeights(l, constantSpectrum(1), m));
+  if (!(a > 0)) throw new SpectralInputError('the medium is not sensitive to any of this light', ['medium']);
+  return factorFrom(a, sum(exposureWeights(l, stackFilters(filters.map(onGrid)), m)));
+}
+
+/** A light path prepared for many swatches: spectra plus the precomputed weights. */
+export interface Stack {
+  readonly light: Spectrum;
+  readonly filters: readonly Spectrum[];
+  /** ΠT, 0..1 */
+  readonly transmission: Spectrum;
+  readonly medium: Spectrum;
+  /** the light's white, XYZ with Y = 100 */
+  readonly white: Xyz;
+  /** k·E·x̄, k·E·ȳ, k·E·z̄ (XYZ = Σ ρ·w) */
+  readonly eyeWeights: { readonly x: Float64Array; readonly y: Float64Array; readonly z: Float64Array };
+  /** integration weights of E·T·S over their sum (m = Σ ρ·w); all zero when the stack is fully opaque */
+  readonly mediumWeights: Float64Array;
+  readonly factor: FilterFactor;
+}
+
+/** Prepares grid spectra (light peak-normalised, filters 0..1, medium energy basis) for simulation. */
+export function prepareStack(spectra: { light: Spectrum; filters?: readonly Spectrum[]; medium: Spectrum }): Stack {
+  const light = onGrid(spectra.light);
+  const filters = (spectra.filters ?? []).map(onGrid);
+  const medium = onGrid(spectra.medium);
+  const transmission = stackFilters(filters);
+  const factor = filterFactor(light, filters, medium);
+  const ets = exposureWeights(light, transmission, medium);
+  const sum = ets.reduce((a, v) => a + v, 0);
+  const mediumWeights = sum > 0 ? ets.map((v) => v / sum) : new Float64Array(GRID_SIZE);
+  const eyeWeights = tristimulusWeights(light);
+  const white: Xyz = [eyeWeights.x.reduce((a, b) => a + b, 0), 100, eyeWeights.z.reduce((a, b) => a + b, 0)];
+  return Object.freeze({ light, filters, transmission, medium, white, eyeWeights, mediumWeights, factor });
+}
+
+/** Schema-validated light, filters and medium → a prepared Stack. Errors carry the request path. */
+export function resolveStack(input: { light: LightSource; filters?: readonly FilterSource[]; medium: MediumSource }): Stack {
+  const light = within(['light'], () => resolveLight(input.light));
+  const filters = (input.filters ?? []).map((f, i) => within(['filters', i], () => resolveFilter(f)));
+  const medium = within(['medium'], () => resolveMedium(input.medium));
+  return prepareStack({ light, filters, medium });
+}
+
+const FLOOR = MIDDLE_GREY * 2 ** FLOOR_STOPS;
+/** Stops from middle grey of a relative value (floored at FLOOR_STOPS). */
+export function stopsFromGrey(relative: number): number {
+  return Math.log2(Math.max(relative, FLOOR) / MIDDLE_GREY);
+}
+
+/**
+ * Every swatch through `stack`: XYZ and L*a*b* to the eye, exposure m, stops, eye stops, shift and
+ * zone (definitions in the header). Cost per swatch: four 81-sample dot products.
+ */
+export function simulateSwatches(stack: Stack, swatches: readonly ResolvedSwatch[]): SimulateResponse {
+  const { x: wx, y: wy, z: wz } = stack.eyeWeights;
+  const wm = stack.mediumWeights;
+  const out: SwatchResultView[] = swatches.map((s) => {
+    const r = onGrid(s.reflectance).values;
+    let X = 0;
+    let Y = 0;
+    let Z = 0;
+    let m = 0;
+    for (let i = 0; i < GRID_SIZE; i++) {
+      const v = r[i];
+      X += v * wx[i];
+      Y += v * wy[i];
+      Z += v * wz[i];
+      m += v * wm[i];
+    }
+    const xyz: Xyz = [X, Y, Z];
+    const stops = stopsFromGrey(m);
+    const eyeStops = stopsFromGrey(Y / 100);
+    return {
+      name: s.name,
+      xyz,
+      lab: xyzToLab(xyz, stack.white),
+      exposure: m,
+      stops,
+      eyeStops,
+      shift: stops - eyeStops,
+      zone: Math.min(10, Math.max(0, 5 + stops)),
+      estimated: s.estimated,
+    };
+  });
+  return { filterFactor: stack.factor.factor, filterStops: stack.factor.stops, opaque: stack.factor.opaque, white: stack.white, swatches: out };
+}
+
+/** POST /api/simulate in one call: a validated request and the upsampling table → the answer. */
+export function simulate(request: SimulateRequest, table: UpsampleTable | null): SimulateResponse {
+  const stack = resolveStack(request);
+  const swatches = request.swatches.map((s, i) => within(['swatches', i], () => resolveSwatch(s, table)));
+  return simulateSwatches(stack, swatches);
+}

@@ -1,0 +1,104 @@
+import { describe, expect, it } from 'vitest';
+import { filterFromPairs, lightFromPairs, mediumFromPairs, reflectanceFromPairs } from '../../../shared/spectral/bases';
+import { SpectralInputError } from '../../../shared/spectral/errors';
+import { GRID_NM } from '../../../shared/spectral/grid';
+import { GRID_SIZE } from '../../../shared/spectral/policy';
+import { makeSpectrum, multiply, resample, spectrumFromPairs, toPairs, valueAt } from '../../../shared/spectral/spectrum';
+
+/** Default tolerance: exact arithmetic up to rounding. */
+const TOL = 1e-12;
+
+const cover = (f: (nm: number) => number, step = 10): [number, number][] => Array.from({ length: Math.round(400 / step) + 1 }, (_, i) => [380 + i * step, f(380 + i * step)]);
+
+function errorOf(fn: () => unknown): SpectralInputError {
+  try {
+    fn();
+  } catch (e) {
+    if (e instanceof SpectralInputError) return e;
+    throw e;
+  }
+  throw new Error('expected a SpectralInputError');
+}
+
+describe('reading [nm, value] pairs', () => {
+  it('accepts any order and spacing and resamples onto the 81-sample grid (linear inside, constant outside)', () => {
+    const s = spectrumFromPairs([[700, 0.7], [400, 0.4], [550, 0.55], [420, 0.42]]);
+    expect(s.values).toHaveLength(GRID_SIZE);
+    expect(valueAt(s, 380)).toBeCloseTo(0.4, 12); // held constant below 400 nm
+    expect(valueAt(s, 780)).toBeCloseTo(0.7, 12); // held constant above 700 nm
+    expect(Math.abs(valueAt(s, 485) - (0.42 + ((485 - 420) / 130) * 0.13))).toBeLessThanOrEqual(TOL);
+  });
+
+  it.each([
+    ['a non-number value', [[400, 0.1], [500, 'x'], [700, 0.2]], [1, 1], /not a number/],
+    ['a non-number wavelength', [[400, 0.1], [null, 0.2], [700, 0.2]], [1, 0], /wavelength is not a number/],
+    ['a duplicate wavelength', [[400, 0.1], [500, 0.2], [500, 0.3], [700, 0.2]], [2, 0], /500 nm appears twice/],
+    ['a negative value', [[400, 0.1], [500, -0.2], [700, 0.2]], [1, 1], /negative/],
+    ['fewer than 3 points', [[400, 0.1], [700, 0.2]], [], /at least 3/],
+    ['data not covering 400–700 nm', [[420, 0.1], [500, 0.2], [700, 0.2]], [], /must cover at least 400–700 nm/],
+    ['a pair of the wrong length', [[400, 0.1, 3], [500, 0.2], [700, 0.2]], [0], /pair/],
+  ])('refuses %s, naming it', (_what, pairs, path, message) => {
+    const e = errorOf(() => spectrumFromPairs(pairs, { min: 0 }));
+    expect(e.path).toEqual(path);
+    expect(e.reason).toMatch(message);
+  });
+
+  it('refuses something that is not a list', () => {
+    expect(errorOf(() => spectrumFromPairs('400,1')).reason).toMatch(/list/);
+  });
+});
+
+describe('bases', () => {
+  it('filters: transmittance, percent and optical density give the same transmittance', () => {
+    const t = filterFromPairs(cover(() => 0.5));
+    const p = filterFromPairs(cover(() => 50), 'percent');
+    const d = filterFromPairs(cover(() => Math.log10(2)), 'density');
+    for (let i = 0; i < GRID_SIZE; i++) {
+      expect(Math.abs(p.values[i] - t.values[i])).toBeLessThanOrEqual(TOL);
+      expect(Math.abs(d.values[i] - t.values[i])).toBeLessThanOrEqual(TOL);
+    }
+  });
+  it('filters: a transmittance above 1 is refused with advice', () => {
+    expect(errorOf(() => filterFromPairs(cover(() => 50))).reason).toMatch(/basis "percent"/);
+  });
+  it('media: log10 and quantum bases convert to relative energy sensitivity, peak 1', () => {
+    const log = mediumFromPairs(cover((nm) => (nm - 780) / 400), 'log10'); // rises 10× over the range
+    expect(Math.max(...log.values)).toBeCloseTo(1, 12);
+    expect(log.values[0]).toBeCloseTo(0.1, 12);
+    const q = mediumFromPairs(cover(() => 0.6), 'quantum'); // flat QE → energy basis ∝ λ
+    GRID_NM.forEach((nm, i) => expect(Math.abs(q.values[i] - nm / 780)).toBeLessThanOrEqual(TOL));
+  });
+  it('media: log10 values may be negative; energy values may not', () => {
+    expect(() => mediumFromPairs(cover(() => -1), 'log10')).not.toThrow();
+    expect(errorOf(() => mediumFromPairs(cover(() => -1))).reason).toMatch(/negative/);
+  });
+  it('lights: scaled to a peak of 1; all-zero refused', () => {
+    expect(Math.max(...lightFromPairs(cover((nm) => nm)).values)).toBe(1);
+    expect(errorOf(() => lightFromPairs(cover(() => 0))).reason).toMatch(/zero everywhere/);
+  });
+  it('reflectance: fraction or percent', () => {
+    const a = reflectanceFromPairs(cover(() => 0.3));
+    const b = reflectanceFromPairs(cover(() => 30), 'percent');
+    expect(Math.abs(a.values[40] - b.values[40])).toBeLessThanOrEqual(TOL);
+    expect(errorOf(() => reflectanceFromPairs(cover(() => 30))).reason).toMatch(/percent/);
+  });
+});
+
+describe('spectra are values', () => {
+  it('operations return new spectra and leave their arguments alone', () => {
+    const a = makeSpectrum(new Float64Array(GRID_SIZE).fill(0.5));
+    const b = makeSpectrum(new Float64Array(GRID_SIZE).fill(0.5));
+    const c = multiply(a, b);
+    expect(c.values[0]).toBe(0.25);
+    expect(a.values[0]).toBe(0.5);
+    expect(Object.isFrozen(c)).toBe(true);
+  });
+  it('a grid mismatch must be resampled explicitly', () => {
+    const coarse = makeSpectrum([1, 2, 3], { startNm: 380, endNm: 780, stepNm: 200 });
+    const fine = makeSpectrum(new Float64Array(GRID_SIZE).fill(1));
+    expect(() => multiply(fine, coarse)).toThrow(/resample/);
+    const r = resample(coarse);
+    expect(valueAt(r, 480)).toBeCloseTo(1.5, 12);
+    expect(toPairs(r)[0]).toEqual([380, 1]);
+  });
+});
