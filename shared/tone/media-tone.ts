@@ -79,11 +79,11 @@ type Entry = Omit<NegativeToneDefaults, 'mediumId' | 'known'> | Omit<SensorToneD
 
 /** The built-in media's tone defaults (box speeds are typical model values). */
 const TABLE: Record<string, Entry> = {
-  'medium.blue-sensitive': classic(25),
-  'medium.orthochromatic': classic(80),
-  'medium.panchromatic': modern(250),
-  'medium.panchromatic-extended-red': modern(200),
-  'medium.silicon-ir-cut': {
+  'blue-sensitive': classic(25),
+  'orthochromatic': classic(80),
+  panchromatic: modern(250),
+  'panchromatic-extended-red': modern(200),
+  'silicon-ir-cut': {
     kind: 'sensor',
     family: 'sensor',
     boxSpeed: 800,
@@ -92,7 +92,7 @@ const TABLE: Record<string, Entry> = {
     shadowDetailStops: 6,
     highlightRollOffStops: 4,
   },
-  'medium.eye': {
+  'eye': {
     kind: 'eye',
     family: 'eye',
     boxSpeed: null,
@@ -106,12 +106,14 @@ const TABLE: Record<string, Entry> = {
 export const TONE_MEDIUM_IDS = Object.freeze(Object.keys(TABLE));
 
 /**
- * Tone defaults for a medium id. Unknown ids: ids starting 'medium.silicon' get the sensor defaults,
+ * Tone defaults for a medium id: the built-in library's ids (data/library/media.json, e.g. 'panchromatic'),
+ * also accepted with a 'medium.' prefix. Unknown ids: ids starting 'silicon' get the sensor defaults,
  * anything else the modern-negative defaults at box speed 250; `known` is false for both.
  */
 export function mediumToneDefaults(mediumId: string): MediumToneDefaults {
-  const hit = TABLE[mediumId];
+  const key = mediumId.replace(/^medium\./, '');
+  const hit = TABLE[key];
   if (hit) return { ...hit, mediumId, known: true } as MediumToneDefaults;
-  const fallback = mediumId.startsWith('medium.silicon') ? TABLE['medium.silicon-ir-cut'] : modern(250);
+  const fallback = key.startsWith('silicon') ? TABLE['silicon-ir-cut'] : modern(250);
   return { ...fallback, mediumId, known: false } as MediumToneDefaults;
 }

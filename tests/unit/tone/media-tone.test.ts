@@ -50,3 +50,12 @@ describe('tone defaults per medium', () => {
     }
   });
 });
+
+describe('the built-in library', () => {
+  it('has tone defaults for every built-in medium id', async () => {
+    const media = (await import('../../../data/library/media.json')).default as { media?: { id: string }[]; items?: { id: string }[] };
+    const list = (media.media ?? media.items ?? []) as { id: string }[];
+    expect(list.length).toBeGreaterThanOrEqual(6);
+    for (const m of list) expect(mediumToneDefaults(m.id).known).toBe(true);
+  });
+});
