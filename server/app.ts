@@ -21,6 +21,14 @@ import { csrfCheck } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
 import { NotFoundError } from './errors';
 // ROUTER IMPORTS START
+import { exposureRouter } from './modules/exposure/exposure.router';
+import { simulateRouter } from './modules/simulate/simulate.router';
+import { libraryRouter } from './modules/library/library.router';
+import { looksRouter } from './modules/looks/looks.router';
+import { swatchesRouter } from './modules/swatches/swatches.router';
+import { boardsRouter } from './modules/boards/boards.router';
+import { sheetsRouter } from './modules/sheets/sheets.router';
+import { photosRouter } from './modules/photos/photos.router';
 // ROUTER IMPORTS END
 
 export interface CreateAppOptions {
@@ -94,6 +102,14 @@ export async function createApp(opts: CreateAppOptions = {}): Promise<GrisailleA
   app.use('/api', teamRouter(ctx));
   app.use('/api', outboxRouter(ctx));
   // ROUTES START
+  app.use('/api', exposureRouter(ctx));
+  app.use('/api', simulateRouter(ctx));
+  app.use('/api', libraryRouter(ctx));
+  app.use('/api', looksRouter(ctx));
+  app.use('/api', swatchesRouter(ctx));
+  app.use('/api', boardsRouter(ctx));
+  app.use('/api', sheetsRouter(ctx));
+  app.use('/api', photosRouter(ctx));
   // ROUTES END
   app.use('/api', (_req, _res, next) => next(new NotFoundError('That API route')));
 

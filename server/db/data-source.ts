@@ -11,16 +11,27 @@ import { PasswordReset } from './entities/password-reset.entity';
 import { SessionRow } from './entities/session.entity';
 import { MailMessage } from './entities/mail-message.entity';
 // ENTITY IMPORTS (features add theirs here)
+import { Curve } from './entities/curve.entity';
+import { Look } from './entities/look.entity';
+import { Swatch } from './entities/swatch.entity';
+import { Board } from './entities/board.entity';
+import { Photo } from './entities/photo.entity';
 import { Init1764625000000 } from './migrations/1764625000000-init';
 // MIGRATION IMPORTS (features add theirs here)
+import { BenchBoards1764628004000 } from './migrations/1764628004000-bench-boards';
+import { Photos1764627005000 } from './migrations/1764627005000-photos';
 
 export const entities = [
   User, Production, Membership, Invitation, PasswordReset, SessionRow, MailMessage,
   // ENTITIES
+  Curve, Look, Swatch, Board,
+  Photo,
 ];
 export const migrations = [
   Init1764625000000,
   // MIGRATIONS
+  BenchBoards1764628004000,
+  Photos1764627005000,
 ];
 
 /**

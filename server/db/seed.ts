@@ -5,6 +5,8 @@ import { Membership } from './entities/membership.entity';
 import { hashPassword } from '../modules/auth/password';
 import type { Department, Role } from '../../shared/schemas/roles';
 // DEMO SEED IMPORTS START
+import { seedLooksAndBoards } from './seed-content/looks-boards';
+import { seedDemoPhotos } from './seed-content/photos';
 // DEMO SEED IMPORTS END
 
 /** Every demo account uses this password (invented demo data). */
@@ -54,6 +56,8 @@ export async function seedDemo(ctx: AppContext): Promise<boolean> {
       if (a.role && a.department) members[a.email] = await t.save(Membership, { user, production, role: a.role, department: a.department });
     }
     // DEMO SEED CALLS START
+    await seedLooksAndBoards(t, production, members);
+    await seedDemoPhotos(t, production, members, ctx.env.dataDir);
     // DEMO SEED CALLS END
   });
   return true;

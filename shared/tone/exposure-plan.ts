@@ -75,8 +75,9 @@ export function lightLevelTable(ei: number, camera: Omit<CameraSettings, 'tStop'
 
 /**
  * The tone model's id for a look's medium reference (the same rule as the board tones on the server):
- * built-in media ("panchromatic") are "medium.<id>" in shared/tone/media-tone; production curves are
- * "curve.<id>" and inline samples "custom", which take the tone model's fallback (modern negative).
+ * built-in media by their library id (shared/tone/media-tone knows them, with or without a "medium."
+ * prefix); production curves are "curve.<id>" and inline samples "custom", which take the tone model's
+ * fallback (modern negative).
  */
 export function toneMediumIdOfRef(ref: { curveId?: number; source?: { id?: string } }): string {
   const id = ref.source?.id;

@@ -23,6 +23,15 @@ const productionPages: RouteObject[] = [
   { index: true, ...page(() => import('./routes/production-overview')) },
   { path: 'team', ...page(() => import('./routes/team')) },
   // PRODUCTION ROUTES START
+  { path: 'looks/:lookId/sheet', ...page(() => import('./routes/exposure-sheet')) },
+  { path: 'looks', ...page(() => import('./routes/looks')) },
+  { path: 'looks/compare', ...page(() => import('./routes/looks-compare')) },
+  { path: 'bench', ...page(() => import('./routes/bench')) },
+  { path: 'bench/:lookId', ...page(() => import('./routes/bench')) },
+  { path: 'library', ...page(() => import('./routes/library')) },
+  { path: 'swatches', ...page(() => import('./routes/swatches')) },
+  { path: 'boards', ...page(() => import('./routes/boards')) },
+  { path: 'boards/:boardId', ...page(() => import('./routes/board')) },
   // PRODUCTION ROUTES END
 ];
 

@@ -8,6 +8,11 @@ import { ProductionSettings } from '../../features/productions/components/produc
 /** Department → where to start. Feature links are added as features land. */
 const STARTS: { title: string; text: string; to: string }[] = [
   // OVERVIEW LINKS START
+  { title: 'Bench', text: 'Build a look as its light path: light, filters, medium, development, print; see the filter factor for each light.', to: 'bench' },
+  { title: 'Looks', text: 'The saved looks, side by side: up to four compared through the same board.', to: 'looks' },
+  { title: 'Boards', text: "Each department's swatches as grey: zones, shifts, and the colours that merge.", to: 'boards' },
+  { title: 'Swatches', text: 'Add a lip colour, a fabric or a paint by colour or measured file, and see its zone through every look.', to: 'swatches' },
+  { title: 'Library', text: 'Built-in lights, filters and media, and your own curves from files, forms and gels.', to: 'library' },
   // OVERVIEW LINKS END
   { title: 'Team', text: 'Members, roles, departments and invitations.', to: 'team' },
 ];

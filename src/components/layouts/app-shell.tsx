@@ -11,6 +11,11 @@ const navCls = ({ isActive }: { isActive: boolean }) =>
 const PRODUCTION_NAV: { to: string; label: string; end?: boolean }[] = [
   { to: '', label: 'Overview', end: true },
   // NAV START
+  { to: 'looks', label: 'Looks' },
+  { to: 'bench', label: 'Bench' },
+  { to: 'boards', label: 'Boards' },
+  { to: 'swatches', label: 'Swatches' },
+  { to: 'library', label: 'Library' },
   // NAV END
   { to: 'team', label: 'Team' },
 ];

@@ -1,0 +1,58 @@
+/**
+ * A board of 200 swatches through four looks, on the server path: the tones service reads the board, its
+ * swatches and looks from SQLite, resolves the looks with the engine, and computes every tone, grey and
+ * merge. Figures: `board_200x4_ms` (median of 9 warm runs; target < 100 ms), `board_200x4_cold_ms` (the
+ * first run, which also estimates 200 spectra from their colours), `board_200x4_http_ms` (through HTTP).
+ */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import request from 'supertest';
+import { createApp } from '../server/app';
+import { Production } from '../server/db/entities/production.entity';
+import { Look } from '../server/db/entities/look.entity';
+import { Swatch } from '../server/db/entities/swatch.entity';
+import { Board } from '../server/db/entities/board.entity';
+import { DEMO_PASSWORD, DEMO_PRODUCTION_NAME } from '../server/db/seed';
+import { ToneService } from '../server/modules/boards/tone.service';
+import { resolveSwatchOrigin } from '../server/modules/swatches/swatches.service';
+import { getUpsampleTable } from '../server/services/upsample-table';
+import { medianMs } from './lib';
+
+/** Deterministic colours (a small LCG), so every run times the same board. */
+function colours(n: number, seed = 20240601): string[] {
+  let s = seed;
+  const next = () => (s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32;
+  return Array.from({ length: n }, () => '#' + [next(), next(), next()].map((v) => Math.round(v * 255).toString(16).padStart(2, '0')).join(''));
+}
+
+export default async function run(record: (name: string, value: number, unit: string) => void): Promise<void> {
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'grisaille-bench-board-'));
+  const g = await createApp({ env: { dataDir, demo: true, nodeEnv: 'test', authRateLimit: 100_000, publicUrl: 'http://localhost:5178' }, seed: true, serveClient: false });
+  try {
+    const ds = g.ctx.ds;
+    await getUpsampleTable(dataDir); // the table is built once per data dir at first start; not part of a board's cost
+    const production = await ds.getRepository(Production).findOneByOrFail({ name: DEMO_PRODUCTION_NAME });
+    const looks = await ds.getRepository(Look).find({ where: { production: { id: production.id } }, order: { id: 'ASC' }, take: 4 });
+    const swatches = await ds.getRepository(Swatch).save(
+      colours(200).map((hex, i) => ds.getRepository(Swatch).create({ production, department: 'costume', name: `Bench swatch ${i + 1}`, notes: '', ...resolveSwatchOrigin({ type: 'colour', colour: { space: 'hex', hex } }) })),
+    );
+    const board = await ds.getRepository(Board).save({ production, department: 'costume', name: 'Bench 200 × 4', notes: '', lookIds: looks.map((l) => l.id), mergeStops: 1 / 3, mergeDeltaE: 10, swatches });
+    const svc = new ToneService(ds, dataDir);
+    const t0 = performance.now();
+    const first = await svc.boardTones(production.id, board.id, {});
+    record('board_200x4_cold_ms', performance.now() - t0, 'ms');
+    if (first.looks.length !== 4 || first.looks.some((l) => l.tones.length !== 200)) throw new Error('board bench: expected 4 looks × 200 tones');
+    record('board_200x4_ms', await medianMs(() => svc.boardTones(production.id, board.id, {}), 9), 'ms');
+    const agent = request.agent(g.app);
+    const csrf = (await agent.get('/api/auth/csrf')).body.csrfToken;
+    await agent.post('/api/auth/sign-in').set('X-CSRF-Token', csrf).send({ email: 'costume@demo.grisaille.test', password: DEMO_PASSWORD });
+    record('board_200x4_http_ms', await medianMs(async () => {
+      const r = await agent.get(`/api/productions/${production.id}/boards/${board.id}/tones`);
+      if (r.status !== 200) throw new Error(`board bench: HTTP ${r.status}`);
+    }, 9), 'ms');
+  } finally {
+    await g.close();
+    fs.rmSync(dataDir, { recursive: true, force: true });
+  }
+}

@@ -1,0 +1,92 @@
+import { In, type DataSource, type EntityManager } from 'typeorm';
+import { Board } from '../../db/entities/board.entity';
+import { Look } from '../../db/entities/look.entity';
+import { Swatch } from '../../db/entities/swatch.entity';
+import { InvalidError, NotFoundError } from '../../errors';
+import type { BoardTones, LookTones } from '../../../shared/schemas/board';
+import type { LookDefinition } from '../../../shared/schemas/look';
+import { toneSettingsSchema } from '../../../shared/schemas/exposure';
+import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
+import { getUpsampleTable } from '../../services/upsample-table';
+import { loadCurves, refsOfLook, resolveLook } from '../looks/look-resolve';
+import { swatchSpectrum } from '../swatches/swatch-spectra';
+import { lookTones, type ToneLook, type ToneSwatch } from './board-tones';
+
+/** A look to compute with: a saved one, or an unsaved definition from the bench. */
+export type LookInput = LookDefinition & { id: number; name: string };
+
+/** A saved look as a definition; tone settings saved before a setting existed take its default. */
+export function lookDefinition(l: Look): LookInput {
+  return { id: l.id, name: l.name, light: l.light, filters: l.filters, medium: l.medium, tone: toneSettingsSchema.parse(l.tone ?? {}) };
+}
+
+/** Resolves looks (curves, key swatches) for tone computation, in one pass over the database. */
+export async function prepareToneLooks(em: EntityManager, productionId: number, looks: LookInput[], table: UpsampleTable): Promise<ToneLook[]> {
+  const curves = await loadCurves(em, productionId, looks.flatMap(refsOfLook));
+  const keyIds = [...new Set(looks.map((l) => l.tone.keySwatchId).filter((x): x is number => x !== null))];
+  const keys = keyIds.length ? await em.find(Swatch, { where: { id: In(keyIds), production: { id: productionId } } }) : [];
+  const keyById = new Map(keys.map((k) => [k.id, k]));
+  return looks.map((l) => {
+    const key = l.tone.keySwatchId !== null ? keyById.get(l.tone.keySwatchId) : undefined;
+    return { id: l.id, name: l.name, resolved: resolveLook(l, curves), tone: l.tone, key: key ? swatchSpectrum(key, table).reflectance : null };
+  });
+}
+
+export function toneSwatches(rows: Swatch[], table: UpsampleTable): ToneSwatch[] {
+  return rows.map((s) => ({ id: s.id, name: s.name, ...swatchSpectrum(s, table) }));
+}
+
+/** Tones of boards and swatches through looks, computed on the server per request. */
+export class ToneService {
+  constructor(private ds: DataSource, private dataDir: string) {}
+
+  private table() {
+    return getUpsampleTable(this.dataDir);
+  }
+
+  async boardTones(productionId: number, boardId: number, q: { looks?: number[]; mergeStops?: number; mergeDeltaE?: number }): Promise<BoardTones> {
+    const em = this.ds.manager;
+    const board = await em.findOne(Board, { where: { id: boardId, production: { id: productionId } }, relations: { swatches: true } });
+    if (!board) throw new NotFoundError('Board');
+    const lookIds = q.looks ?? board.lookIds;
+    const rows = lookIds.length ? await em.find(Look, { where: { id: In(lookIds), production: { id: productionId } } }) : [];
+    const byId = new Map(rows.map((l) => [l.id, l]));
+    const missing = lookIds.find((id) => !byId.has(id));
+    if (q.looks && missing !== undefined) throw new InvalidError(`looks: look ${missing} is not in this production`, 'looks');
+    const looks = lookIds.filter((id) => byId.has(id)).map((id) => lookDefinition(byId.get(id)!));
+    const table = await this.table();
+    const t0 = performance.now();
+    const mergeStops = q.mergeStops ?? board.mergeStops;
+    const mergeDeltaE = q.mergeDeltaE ?? board.mergeDeltaE;
+    const toneLooks = await prepareToneLooks(em, productionId, looks, table);
+    const swatches = toneSwatches(board.swatches, table);
+    const out = toneLooks.map((l) => lookTones(l, swatches, mergeStops, mergeDeltaE));
+    return { boardId, mergeStops, mergeDeltaE, looks: out, ms: performance.now() - t0 };
+  }
+
+  /** One swatch through every look of the production (merges are not computed for a single swatch). */
+  async swatchTones(productionId: number, swatchId: number): Promise<{ swatchId: number; looks: LookTones[] }> {
+    const em = this.ds.manager;
+    const s = await em.findOne(Swatch, { where: { id: swatchId, production: { id: productionId } } });
+    if (!s) throw new NotFoundError('Swatch');
+    const looks = (await em.find(Look, { where: { production: { id: productionId } }, order: { id: 'ASC' } })).map(lookDefinition);
+    const table = await this.table();
+    const toneLooks = await prepareToneLooks(em, productionId, looks, table);
+    const swatches = toneSwatches([s], table);
+    return { swatchId, looks: toneLooks.map((l) => lookTones(l, swatches, 0, Infinity)) };
+  }
+
+  /** Tones of a board's swatches through one unsaved look (the bench while it is edited). */
+  async unsavedLookTones(productionId: number, look: LookInput, boardId: number): Promise<{ tones: LookTones; swatches: { id: number; name: string; hex: string; estimated: boolean }[] }> {
+    const em = this.ds.manager;
+    const board = await em.findOne(Board, { where: { id: boardId, production: { id: productionId } }, relations: { swatches: true } });
+    if (!board) throw new InvalidError(`boardId: board ${boardId} is not in this production`, 'boardId');
+    const table = await this.table();
+    const [toneLook] = await prepareToneLooks(em, productionId, [look], table);
+    const swatches = toneSwatches(board.swatches, table);
+    return {
+      tones: lookTones(toneLook, swatches, board.mergeStops, board.mergeDeltaE),
+      swatches: board.swatches.map((s) => ({ id: s.id, name: s.name, hex: s.hex, estimated: !s.reflectance })),
+    };
+  }
+}

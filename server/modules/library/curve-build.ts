@@ -1,0 +1,76 @@
+/**
+ * A curve's origin as given → its samples on the grid in the engine's basis, and a line saying where it
+ * came from. Tables are read by the shared CSV reader and converted by the engine's basis readers;
+ * parametric filters and lights through gels are made by the engine's own resolvers.
+ */
+import type { EntityManager } from 'typeorm';
+import { InvalidError } from '../../errors';
+import { filterFromPairs, lightFromPairs, mediumFromPairs, type FilterBasis, type MediumBasis } from '../../../shared/spectral/bases';
+import { resolveFilter } from '../../../shared/spectral/compute';
+import { lightThroughGel } from '../../../shared/spectral/lights';
+import { SpectralInputError } from '../../../shared/spectral/errors';
+import { toPairs, type Spectrum } from '../../../shared/spectral/spectrum';
+import { CURVE_BASIS_LABELS, type CurveKind, type CurveOrigin, type CurveOriginInput } from '../../../shared/schemas/curve';
+import { loadCurves, resolveFilterRef, resolveLightRef } from '../looks/look-resolve';
+import { readTable, withTableErrors } from './table-input';
+
+export interface BuiltCurve {
+  origin: CurveOrigin;
+  samples: [number, number][];
+  source: string;
+}
+
+const round = (s: Spectrum): [number, number][] => toPairs(s).map(([nm, v]) => [nm, Number(v.toPrecision(7))]);
+
+function describeParametric(f: CurveOriginInput & { type: 'parametric' }): string {
+  const p = f.filter;
+  const extra = (o: { slopeNm?: number; peak?: number }) => `${o.slopeNm !== undefined ? `, slope ${o.slopeNm} nm` : ''}${o.peak !== undefined ? `, peak ${o.peak}` : ''}`;
+  if (p.longPass) return `parametric long-pass, cut-on ${p.longPass.cutOnNm} nm${extra(p.longPass)}`;
+  if (p.shortPass) return `parametric short-pass, cut-off ${p.shortPass.cutOffNm} nm${extra(p.shortPass)}`;
+  if (p.bandPass) return `parametric band-pass, centre ${p.bandPass.centreNm} nm, width ${p.bandPass.widthNm} nm${extra(p.bandPass)}`;
+  if (p.notch) return `parametric notch, centre ${p.notch.centreNm} nm, width ${p.notch.widthNm} nm${extra(p.notch)}`;
+  return `neutral density ${p.neutralDensity}`;
+}
+
+/** Builds a curve of `kind` from its origin (inside the caller's transaction). Throws InvalidError naming the field. */
+export async function buildCurve(em: EntityManager, productionId: number, kind: CurveKind, o: CurveOriginInput): Promise<BuiltCurve> {
+  if (o.type === 'table') {
+    const table = readTable(o.table, 'origin.table');
+    const spectrum = withTableErrors(table, 'origin.table', (pairs) =>
+      kind === 'filter' ? filterFromPairs(pairs, o.basis as FilterBasis) : kind === 'medium' ? mediumFromPairs(pairs, o.basis as MediumBasis) : lightFromPairs(pairs),
+    );
+    const nm = table.pairs.map((p) => p[0]);
+    const range = `${Math.min(...nm)}–${Math.max(...nm)} nm`;
+    const from = table.fileName ? `uploaded file ${table.fileName}` : 'pairs given through the API';
+    return {
+      origin: { type: 'table', basis: o.basis, fileName: table.fileName, pairs: table.pairs, headers: table.headers.slice(0, 10) },
+      samples: round(spectrum),
+      source: `${from}: ${table.pairs.length} points over ${range}, ${CURVE_BASIS_LABELS[o.basis]}${table.decimalComma ? ', decimal commas' : ''}`,
+    };
+  }
+  if (o.type === 'parametric') {
+    let spectrum: Spectrum;
+    try {
+      spectrum = resolveFilter(o.filter);
+    } catch (e) {
+      if (e instanceof SpectralInputError) throw new InvalidError(`origin.filter: ${e.reason}`, 'origin.filter');
+      throw e;
+    }
+    return { origin: { type: 'parametric', filter: o.filter }, samples: round(spectrum), source: describeParametric(o) };
+  }
+  const curves = await loadCurves(em, productionId, [o.light, ...o.gels]);
+  const light = resolveLightRef(o.light, curves, 'origin.light');
+  const gels = o.gels.map((g, i) => resolveFilterRef(g, curves, `origin.gels.${i}`));
+  let spectrum: Spectrum;
+  try {
+    spectrum = lightThroughGel(light.spectrum, ...gels.map((g) => g.spectrum));
+  } catch (e) {
+    if (e instanceof SpectralInputError) throw new InvalidError(`origin.gels: ${e.reason}`, 'origin.gels');
+    throw e;
+  }
+  return {
+    origin: { type: 'gel', light: o.light, gels: o.gels },
+    samples: round(spectrum),
+    source: `${light.label} through ${gels.map((g) => g.label).join(' and ')}`,
+  };
+}

@@ -1,0 +1,158 @@
+/**
+ * A look's references → the engine's spectra. Production curves (`curveId`) are read from the
+ * production's library (their grid samples, already in the engine's basis); built-in and inline
+ * sources go through the engine's resolvers. Filters "on the light" are gels: they change the light
+ * the scene is lit by (so the eye sees them too); filters "on the lens" only the camera sees.
+ */
+import { In, type EntityManager } from 'typeorm';
+import { Curve } from '../../db/entities/curve.entity';
+import { InvalidError } from '../../errors';
+import { resolveFilter, resolveLight, resolveMedium, prepareStack, filterFactor, type Stack, type FilterFactor } from '../../../shared/spectral/compute';
+import { lightThroughGel } from '../../../shared/spectral/lights';
+import { SpectralInputError } from '../../../shared/spectral/errors';
+import { makeSpectrum, type Spectrum } from '../../../shared/spectral/spectrum';
+import { GRID_NM_LIST } from '../../../shared/spectral/grid';
+import { libraryFilter, libraryLight, libraryMedium } from '../../../shared/spectral/library';
+import type { FilterRef, LightRef, MediumRef, CurveKind } from '../../../shared/schemas/curve';
+import type { FilterPlace, LookDefinition } from '../../../shared/schemas/look';
+import type { FilterSource, LightSource, MediumSource, StackSource } from '../../../shared/schemas/simulate';
+
+export interface ResolvedCurve {
+  spectrum: Spectrum;
+  /** a short name for the card ("Tungsten 3200 K", "Blackbody 2900 K", a curve's name) */
+  label: string;
+  /** where it came from */
+  source: string;
+  /** the built-in library id when it is one (for tone defaults), else null */
+  libraryId: string | null;
+  /** the production curve id when it is one */
+  curveId: number | null;
+}
+
+export interface ResolvedLook {
+  /** the lamp as chosen, before any gel */
+  bareLight: ResolvedCurve;
+  /** the light the scene is lit by: the lamp through the light-mounted filters, peak 1 */
+  light: Spectrum;
+  filters: (ResolvedCurve & { on: FilterPlace })[];
+  medium: ResolvedCurve;
+  /** stack for the swatches: gelled light, lens filters, medium */
+  stack: Stack;
+  /** filter factor of every filter (gels and lens) against the bare lamp, on the medium */
+  factor: FilterFactor;
+}
+
+/** The references of a look that may name production curves. */
+export function refsOfLook(d: Pick<LookDefinition, 'light' | 'filters' | 'medium'>): { curveId?: number }[] {
+  return [d.light, d.medium, ...d.filters.map((f) => f.filter)];
+}
+
+/** The production curves some references name, loaded once (id → curve of the production). */
+export async function loadCurves(em: EntityManager, productionId: number, refs: { curveId?: number }[]): Promise<Map<number, Curve>> {
+  const ids = new Set(refs.map((r) => r.curveId).filter((x): x is number => x !== undefined));
+  if (!ids.size) return new Map();
+  const rows = await em.find(Curve, { where: { id: In([...ids]), production: { id: productionId } } });
+  return new Map(rows.map((c) => [c.id, c]));
+}
+
+function curveSpectrum(curves: Map<number, Curve>, id: number, kind: CurveKind, field: string): ResolvedCurve {
+  const c = curves.get(id);
+  if (!c) throw new InvalidError(`${field}.curveId: there is no curve ${id} in this production's library`, `${field}.curveId`);
+  if (c.kind !== kind) throw new InvalidError(`${field}.curveId: "${c.name}" is a ${c.kind}, not a ${kind}`, `${field}.curveId`);
+  return { spectrum: makeSpectrum(c.samples.map((p) => p[1])), label: c.name, source: `production library: ${c.source}`, libraryId: null, curveId: c.id };
+}
+
+/** Runs an engine resolver; its refusal becomes a 400 on `field`.source…. */
+function engine<T>(field: string, fn: () => T): T {
+  try {
+    return fn();
+  } catch (e) {
+    if (e instanceof SpectralInputError) {
+      const f = [field, 'source', ...e.path].join('.');
+      throw new InvalidError(`${f}: ${e.reason}`, f);
+    }
+    throw e;
+  }
+}
+
+function kelvin(k: number) {
+  return `${Math.round(k)} K`;
+}
+
+/** A readable name for an inline light source. */
+export function lightLabel(s: LightSource): string {
+  const base = s.id ? (libraryLight(s.id)?.name ?? s.id)
+    : s.cie ? `CIE illuminant ${s.cie}`
+    : s.daylight ? `Daylight ${kelvin(s.daylight)}`
+    : s.blackbody ? `Blackbody ${kelvin(s.blackbody)}`
+    : s.led ? `White LED model (${s.led.emitterNm} nm emitter)`
+    : 'Measured light';
+  return s.gels?.length ? `${base} through ${s.gels.length} gel${s.gels.length > 1 ? 's' : ''}` : base;
+}
+
+/** A readable name for an inline filter source. */
+export function filterLabel(s: FilterSource): string {
+  if (s.id) return libraryFilter(s.id)?.name ?? s.id;
+  if (s.longPass) return `Long-pass ${s.longPass.cutOnNm} nm`;
+  if (s.shortPass) return `Short-pass ${s.shortPass.cutOffNm} nm`;
+  if (s.bandPass) return `Band-pass ${s.bandPass.centreNm} nm, ${s.bandPass.widthNm} nm wide`;
+  if (s.notch) return `Notch ${s.notch.centreNm} nm, ${s.notch.widthNm} nm wide`;
+  if (s.neutralDensity !== undefined) return `Neutral density ${s.neutralDensity}`;
+  return 'Measured filter';
+}
+
+/** A readable name for an inline medium source. */
+export function mediumLabel(s: MediumSource): string {
+  return s.id ? (libraryMedium(s.id)?.name ?? s.id) : 'Measured medium';
+}
+
+function sourceNote(kind: 'light' | 'filter' | 'medium', s: { id?: string }): string {
+  if (s.id) {
+    const item = kind === 'light' ? libraryLight(s.id) : kind === 'filter' ? libraryFilter(s.id) : libraryMedium(s.id);
+    return item ? `built-in: ${item.note}` : 'built-in';
+  }
+  return 'given inline in the look';
+}
+
+export function resolveLightRef(r: LightRef, curves: Map<number, Curve>, field: string): ResolvedCurve {
+  if (r.curveId !== undefined) return curveSpectrum(curves, r.curveId, 'light', field);
+  const s = r.source!;
+  return { spectrum: engine(field, () => resolveLight(s)), label: lightLabel(s), source: sourceNote('light', s), libraryId: s.id ?? null, curveId: null };
+}
+export function resolveFilterRef(r: FilterRef, curves: Map<number, Curve>, field: string): ResolvedCurve {
+  if (r.curveId !== undefined) return curveSpectrum(curves, r.curveId, 'filter', field);
+  const s = r.source!;
+  return { spectrum: engine(field, () => resolveFilter(s)), label: filterLabel(s), source: sourceNote('filter', s), libraryId: s.id ?? null, curveId: null };
+}
+export function resolveMediumRef(r: MediumRef, curves: Map<number, Curve>, field: string): ResolvedCurve {
+  if (r.curveId !== undefined) return curveSpectrum(curves, r.curveId, 'medium', field);
+  const s = r.source!;
+  return { spectrum: engine(field, () => resolveMedium(s)), label: mediumLabel(s), source: sourceNote('medium', s), libraryId: s.id ?? null, curveId: null };
+}
+
+/** A look definition → spectra and the prepared stack. Throws InvalidError naming the field. */
+export function resolveLook(def: LookDefinition, curves: Map<number, Curve>): ResolvedLook {
+  const bareLight = resolveLightRef(def.light, curves, 'light');
+  const filters = def.filters.map((f, i) => ({ ...resolveFilterRef(f.filter, curves, `filters.${i}.filter`), on: f.on }));
+  const medium = resolveMediumRef(def.medium, curves, 'medium');
+  const gels = filters.filter((f) => f.on === 'light').map((f) => f.spectrum);
+  const lens = filters.filter((f) => f.on === 'lens').map((f) => f.spectrum);
+  const light = gels.length ? engine('filters', () => lightThroughGel(bareLight.spectrum, ...gels)) : bareLight.spectrum;
+  const all = filters.map((f) => f.spectrum);
+  const factor = engine('medium', () => filterFactor(bareLight.spectrum, all, medium.spectrum));
+  const stack = engine('medium', () => prepareStack({ light, filters: lens, medium: medium.spectrum }));
+  return { bareLight, light, filters, medium, stack, factor };
+}
+
+/**
+ * A look as the engine's own stack source (inline samples for production curves), for features that
+ * hand a look to the engine directly (e.g. a photo's tone table). Gels are folded into the light.
+ */
+export function lookStackSource(r: ResolvedLook): StackSource {
+  const pairs = (s: Spectrum) => Array.from(s.values, (v, i) => [GRID_NM_LIST[i], v] as [number, number]);
+  return {
+    light: { samples: pairs(r.light) },
+    filters: r.filters.filter((f) => f.on === 'lens').map((f) => ({ samples: pairs(f.spectrum) })),
+    medium: { samples: pairs(r.medium.spectrum) },
+  };
+}

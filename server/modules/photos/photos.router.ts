@@ -1,0 +1,99 @@
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import crypto from 'node:crypto';
+import type { AppContext } from '../../context';
+import { validate } from '../../middleware/validate';
+import { AppError, InvalidError } from '../../errors';
+import { handle, productionRoute } from '../route-registry';
+import { idParam } from '../swatches/swatches.router';
+import { photoLookRequestSchema, photoUpdateSchema, photoUploadFieldsSchema, renderRequestSchema } from '../../../shared/schemas/photo';
+import { PhotosService } from './photos.service';
+
+const services = new WeakMap<AppContext, PhotosService>();
+
+/** The photos service of an app (one per app: it owns the render queue). Tests reach its limits here. */
+export function photosService(ctx: AppContext): PhotosService {
+  let s = services.get(ctx);
+  if (!s) services.set(ctx, (s = new PhotosService(ctx.ds, ctx.env.dataDir)));
+  return s;
+}
+
+const mb = (n: number) => (n >= 1024 * 1024 ? `${Math.round(n / 1024 / 1024)} MB` : `${Math.round(n / 1024)} kB`);
+
+/** multer with the current limits: one file part named `file`, to disk under uploads/.incoming, random names. */
+function uploadOne(svc: PhotosService): RequestHandler {
+  return (req, res, next) => {
+    const upload = multer({
+      storage: multer.diskStorage({
+        destination: svc.storage.incomingDir,
+        filename: (_req, _file, cb) => cb(null, `${crypto.randomBytes(16).toString('hex')}.upload`),
+      }),
+      limits: { fileSize: svc.limits.maxBytes, files: 1, fields: 4, fieldSize: 8 * 1024, parts: 6 },
+    }).single('file');
+    upload(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'too_large', `The file is larger than the ${mb(svc.limits.maxBytes)} limit.`, 'file'));
+        return next(new InvalidError(`The upload is not one image in a part named "file" (${err.code.toLowerCase().replace(/_/g, ' ')}).`, 'file'));
+      }
+      next(err);
+    });
+  };
+}
+
+/**
+ * Photos under /api/productions/:productionId: viewers list, view, download and render them;
+ * contributors upload, and rename or delete their own department's (editors and owners any).
+ */
+export function photosRouter(ctx: AppContext): Router {
+  const r = Router();
+  const svc = photosService(ctx);
+  const pid = (req: { membership?: { production: { id: number } } }) => req.membership!.production.id;
+  const photoId = (req: { params: object }) => idParam((req.params as Record<string, string>).photoId, 'Photo');
+
+  productionRoute(r, ctx, 'get', '/photos', 'viewer', handle(async (req, res) => void res.json({ photos: await svc.list(pid(req)) })));
+  productionRoute(r, ctx, 'post', '/photos', 'contributor', uploadOne(svc), handle(async (req, res) => {
+    const file = req.file;
+    if (!file) throw new InvalidError('Choose an image file to upload (a JPEG, PNG, TIFF or WebP).', 'file');
+    const fields = photoUploadFieldsSchema.safeParse(req.body ?? {});
+    if (!fields.success) {
+      const i = fields.error.issues[0];
+      throw new InvalidError(`${i.path.join('.')}: ${i.message}`, i.path.join('.'));
+    }
+    res.status(201).json({ photo: await svc.create(req.membership!, file, fields.data) });
+  }));
+  productionRoute(r, ctx, 'get', '/photos/:photoId', 'viewer', handle(async (req, res) => void res.json({ photo: await svc.get(pid(req), photoId(req)) })));
+  productionRoute(r, ctx, 'patch', '/photos/:photoId', 'contributor', validate(photoUpdateSchema), handle(async (req, res) => {
+    res.json({ photo: await svc.update(req.membership!, photoId(req), req.body) });
+  }));
+  productionRoute(r, ctx, 'delete', '/photos/:photoId', 'contributor', handle(async (req, res) => {
+    await svc.remove(req.membership!, photoId(req));
+    res.status(204).end();
+  }));
+  for (const which of ['preview', 'thumb', 'original'] as const) {
+    productionRoute(r, ctx, 'get', `/photos/:photoId/${which}`, 'viewer', handle(async (req, res) => {
+      const f = await svc.file(pid(req), photoId(req), which);
+      res.setHeader('Cache-Control', 'private, max-age=86400, immutable');
+      res.setHeader('X-Content-Type-Options', 'nosniff');
+      if (which === 'original') res.attachment(f.photo.originalName || `${f.photo.name}.${f.photo.format}`);
+      res.type(f.type).sendFile(f.path);
+    }));
+  }
+  productionRoute(r, ctx, 'post', '/photos/:photoId/renders', 'viewer', validate(renderRequestSchema), handle(async (req, res) => {
+    const s = await svc.startRender(pid(req), photoId(req), req.body);
+    res.status(s.status === 'done' ? 200 : 202).json({ render: s });
+  }));
+  productionRoute(r, ctx, 'get', '/photos/:photoId/renders/:renderKey', 'viewer', handle(async (req, res) => {
+    res.setHeader('Cache-Control', 'no-store');
+    res.json({ render: await svc.renderStatus(pid(req), photoId(req), String(req.params.renderKey)) });
+  }));
+  productionRoute(r, ctx, 'get', '/photos/:photoId/renders/:renderKey/file', 'viewer', handle(async (req, res) => {
+    const f = await svc.renderFile(pid(req), photoId(req), String(req.params.renderKey));
+    res.setHeader('Cache-Control', 'private, max-age=86400, immutable');
+    res.attachment(f.downloadName).type(f.type).sendFile(f.path);
+  }));
+  productionRoute(r, ctx, 'post', '/photo-looks', 'viewer', validate(photoLookRequestSchema), handle(async (req, res) => {
+    res.json({ look: await svc.photoLook(pid(req), req.body) });
+  }));
+  return r;
+}

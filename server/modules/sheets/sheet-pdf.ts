@@ -1,0 +1,279 @@
+/**
+ * The exposure sheet as a PDF (pdfkit): A4 portrait with margins that also print on US Letter, Inter
+ * from @fontsource/inter (WOFF, read by pdfkit's fontkit) with tabular figures, units on every number.
+ * Inter's latin subset lacks ⅓ ⅔ and →, so stops are written "1 2/3" and arrows are drawn.
+ * Falls back to Helvetica when the font files cannot be found.
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { createRequire } from 'node:module';
+import PDFDocument from 'pdfkit';
+import type { ExposureSheet } from '../../../shared/schemas/sheet';
+import { asciiFractions, formatEI, formatFactor, formatFootcandles, formatLux, formatSeconds, formatStopsLabel, formatTStop } from '../../../shared/tone/exposure-format';
+
+const C = { ink: '#1b1a18', soft: '#4a4742', mute: '#77736b', line: '#d9d5ca', sunk: '#ebe8e0', accent: '#1d5c7a', warn: '#c2410c', warnSoft: '#fbe3d6' };
+const PAGE = { size: 'A4' as const, margin: 42 };
+const NUMERALS = ['0', 'I', 'II', 'III', 'IV', 'V', 'VI', 'VII', 'VIII', 'IX', 'X'];
+/** The app's zone ramp (tailwind.config.ts): zone 0..X at CIE L* 0, 10 … 100. */
+const ZONE_GREYS = ['#000000', '#1b1b1b', '#303030', '#474747', '#5e5e5e', '#777777', '#919191', '#ababab', '#c6c6c6', '#e2e2e2', '#ffffff'];
+
+/** Inter's WOFF files from @fontsource/inter, or null when they are not installed. */
+function interFiles(): { regular: string; semibold: string } | null {
+  try {
+    const dir = path.join(path.dirname(createRequire(import.meta.url).resolve('@fontsource/inter/package.json')), 'files');
+    const regular = path.join(dir, 'inter-latin-400-normal.woff');
+    const semibold = path.join(dir, 'inter-latin-600-normal.woff');
+    return fs.existsSync(regular) && fs.existsSync(semibold) ? { regular, semibold } : null;
+  } catch {
+    return null;
+  }
+}
+
+/** One decimal with a sign; −0.0 shows as 0.0. */
+function signed1(v: number): string {
+  const r = Number(v.toFixed(1));
+  return r === 0 ? '0.0' : `${r > 0 ? '+' : '−'}${Math.abs(r).toFixed(1)}`;
+}
+interface Cell { text: string; w: number; align?: 'left' | 'right' | 'center'; bold?: boolean; color?: string; size?: number; /** tabular figures (default: right-aligned cells) */ num?: boolean }
+
+/** Renders the sheet; resolves with the PDF bytes. */
+export function renderSheetPdf(sheet: ExposureSheet): Promise<Buffer> {
+  const doc = new PDFDocument({ size: PAGE.size, margin: PAGE.margin, bufferPages: true, info: { Title: `Exposure sheet: ${sheet.look.name}`, Subject: sheet.production.name, Creator: 'Grisaille' } });
+  const chunks: Buffer[] = [];
+  doc.on('data', (c: Buffer) => chunks.push(c));
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+  const fonts = interFiles();
+  const REG = fonts ? 'Inter' : 'Helvetica';
+  const BOLD = fonts ? 'Inter-SemiBold' : 'Helvetica-Bold';
+  if (fonts) {
+    doc.registerFont(REG, fonts.regular);
+    doc.registerFont(BOLD, fonts.semibold);
+  }
+  const L = PAGE.margin;
+  const W = doc.page.width - 2 * PAGE.margin;
+  const bottom = () => doc.page.height - PAGE.margin - 14;
+  const t = (s: string) => asciiFractions(s);
+  // tabular figures only where numbers line up: Inter's tnum also widens hyphens in words
+  const opts = (o: PDFKit.Mixins.TextOptions = {}, num = false): PDFKit.Mixins.TextOptions => ({ features: fonts ? (num ? ['tnum', 'kern'] : ['kern']) : undefined, lineBreak: true, ...o });
+  const font = (bold: boolean, size: number, color = C.ink) => doc.font(bold ? BOLD : REG).fontSize(size).fillColor(color);
+  const heightOf = (s: string, w: number, bold = false, size = 9, num = false) => font(bold, size).heightOfString(t(s), opts({ width: w }, num));
+  let y = PAGE.margin;
+  const ensure = (h: number) => {
+    if (y + h > bottom()) {
+      doc.addPage();
+      y = PAGE.margin;
+    }
+  };
+  const heading = (label: string) => {
+    ensure(40);
+    font(true, 8, C.accent).text(label.toUpperCase(), L, y, opts({ characterSpacing: 0.8, width: W }));
+    y += 12;
+  };
+  const row = (cells: Cell[], x0 = L, pad = 3, fill?: string) => {
+    const isNum = (c: Cell) => c.num ?? c.align === 'right';
+    const h = Math.max(...cells.map((c) => heightOf(c.text, c.w - 6, c.bold, c.size ?? 9, isNum(c)))) + 2 * pad;
+    if (fill) doc.rect(x0, y, cells.reduce((s, c) => s + c.w, 0), h).fill(fill);
+    let x = x0;
+    for (const c of cells) {
+      font(!!c.bold, c.size ?? 9, c.color ?? C.ink).text(t(c.text), x + 3, y + pad, opts({ width: c.w - 6, align: c.align ?? 'left' }, isNum(c)));
+      x += c.w;
+    }
+    doc.moveTo(x0, y + h).lineTo(x, y + h).lineWidth(0.5).strokeColor(C.line).stroke();
+    y += h;
+    return h;
+  };
+  const headRow = (cells: Cell[], x0 = L) => row(cells.map((c) => ({ ...c, bold: true, size: 7.5, color: C.mute, num: false })), x0, 2);
+
+  // ---------------------------------------------------------------- header
+  font(true, 8, C.accent).text('EXPOSURE SHEET', L, y, opts({ characterSpacing: 1.2 }));
+  const stamp = `Grisaille · ${sheet.generatedAt.slice(0, 16).replace('T', ' ')} UTC`;
+  font(false, 8, C.mute).text(stamp, L, y, opts({ width: W, align: 'right' }));
+  y += 14;
+  font(true, 20).text(t(sheet.look.name), L, y, opts({ width: W }));
+  y = doc.y + 1;
+  font(false, 10, C.soft).text(t(sheet.production.name), L, y, opts({ width: W }));
+  y = doc.y + 8;
+  doc.moveTo(L, y).lineTo(L + W, y).lineWidth(1).strokeColor(C.ink).stroke();
+  y += 12;
+
+  // ---------------------------------------------------------------- light path
+  heading('Light path');
+  const p = sheet.lightPath;
+  const filters = p.filters.length ? p.filters.map((f) => `${f.label}, on the ${f.on}`).join('\n') : 'none';
+  const steps = [
+    ['Light', p.light], ['Filters', filters], ['Medium', p.medium], ['Development', p.development], ['Print', p.print],
+  ];
+  const gap = 14;
+  const bw = (W - gap * (steps.length - 1)) / steps.length;
+  const bh = Math.max(...steps.map(([, v]) => heightOf(v, bw - 12, false, 8.5))) + 24;
+  steps.forEach(([k, v], i) => {
+    const x = L + i * (bw + gap);
+    doc.roundedRect(x, y, bw, bh, 3).lineWidth(0.7).strokeColor(C.line).fillAndStroke(i === 2 ? C.sunk : '#ffffff', C.line);
+    font(true, 7, C.mute).text(k.toUpperCase(), x + 6, y + 6, opts({ width: bw - 12, characterSpacing: 0.6 }));
+    font(false, 8.5).text(t(v), x + 6, y + 17, opts({ width: bw - 12 }));
+    if (i < steps.length - 1) {
+      const ax = x + bw + 2;
+      const ay = y + bh / 2;
+      doc.moveTo(ax, ay).lineTo(ax + gap - 6, ay).lineWidth(1).strokeColor(C.soft).stroke();
+      doc.polygon([ax + gap - 4, ay], [ax + gap - 8, ay - 3], [ax + gap - 8, ay + 3]).fill(C.soft);
+    }
+  });
+  y += bh + 12;
+
+  // ---------------------------------------------------------------- factors and EI chain, side by side
+  const colW = (W - 20) / 2;
+  const top = y;
+  heading('Filter factors');
+  headRow([{ text: 'Light', w: colW - 130 }, { text: 'Stops', w: 80, align: 'right' }, { text: 'Factor', w: 50, align: 'right' }]);
+  for (const f of sheet.factors) {
+    row([
+      { text: `${f.label}\n${f.light}`, w: colW - 130 },
+      { text: f.opaque ? 'opaque' : formatStopsLabel(f.stops), w: 80, align: 'right', color: f.opaque ? C.warn : C.ink },
+      { text: formatFactor(f.factor), w: 50, align: 'right' },
+    ]);
+  }
+  font(false, 7.5, C.mute).text('F = sum(E·S) / sum(E·T·S) over 380–780 nm on this medium; stops = log2 F. Open up by this much.', L, y + 4, opts({ width: colW }));
+  const leftEnd = doc.y;
+
+  y = top;
+  const R = L + colW + 20;
+  font(true, 8, C.accent).text('EXPOSURE-INDEX CHAIN', R, y, opts({ characterSpacing: 0.8 }));
+  y += 12;
+  if (sheet.chain) {
+    headRow([{ text: 'Step', w: colW - 130 }, { text: 'Change', w: 70, align: 'right' }, { text: 'EI', w: 60, align: 'right' }], R);
+    for (const s of sheet.chain.steps) {
+      row([{ text: s.label, w: colW - 130 }, { text: s.step === 'box' ? '' : formatStopsLabel(s.stops), w: 70, align: 'right' }, { text: formatEI(s.ei), w: 60, align: 'right' }], R);
+    }
+    y += 5;
+    doc.rect(R, y, colW, 30).fill(C.ink);
+    font(false, 9, '#ffffff').text('Effective EI (this look’s light)', R + 8, y + 10, opts({ width: colW - 80 }));
+    font(true, 18, '#ffffff').text(String(sheet.chain.effectiveEI), R + colW - 80, y + 5, opts({ width: 72, align: 'right' }));
+    y += 36;
+    font(false, 8, C.soft).text(t(`Effective EI under ${sheet.chain.byLight.map((b) => `${b.light}: ${formatEI(b.effectiveEI)}`).join(';  under ')}.`), R, y, opts({ width: colW }, true));
+    y = doc.y + 2;
+    font(false, 7.5, C.mute).text('Each EI rounded to the ISO third-stop series.', R, y, opts({ width: colW }));
+    y = doc.y;
+  } else {
+    font(false, 9, C.soft).text('The eye has no exposure index.', R, y, opts({ width: colW }));
+    y = doc.y;
+  }
+  y = Math.max(y, leftEnd) + 12;
+
+  // ---------------------------------------------------------------- light levels
+  heading('Light levels (incident, at the subject)');
+  const cam = sheet.camera;
+  const meter = `meter constant C = ${cam.calibrationConstant} lux·s${cam.calibrationConstant === 250 ? ' (flat receptor, the usual value)' : ' (as set for this look)'}`;
+  font(false, 8.5, C.soft).text(t(`${cam.fps} fps, ${cam.shutterAngle}° shutter (${formatSeconds(cam.exposureSeconds)})${sheet.chain ? `, ${formatEI(sheet.chain.effectiveEI)}` : ''}. E = C·N² / (t·S) after ISO 2720, ${meter}.`), L, y, opts({ width: W }, true));
+  y = doc.y + 4;
+  if (sheet.lightLevels.length) {
+    const w4 = W / 4;
+    headRow([{ text: 'T-stop', w: w4 }, { text: 'Foot-candles', w: w4, align: 'right' }, { text: 'Lux', w: w4, align: 'right' }, { text: 'Unfiltered, fc', w: w4, align: 'right' }]);
+    for (const r of sheet.lightLevels) {
+      const own = Math.abs(r.tStop - cam.tStop) < 1e-9;
+      row([
+        { text: formatTStop(r.tStop) + (own ? '  (this look)' : ''), w: w4, bold: own },
+        { text: formatFootcandles(r.footcandles), w: w4, align: 'right', bold: own },
+        { text: formatLux(r.lux), w: w4, align: 'right', bold: own },
+        { text: formatFootcandles(r.unfilteredFootcandles), w: w4, align: 'right', color: C.mute },
+      ], L, 2.5, own ? C.sunk : undefined);
+    }
+  }
+  if (sheet.cost) {
+    y += 6;
+    const text = sheet.cost.ratio > 1.005 ? `This look ${sheet.cost.text} (${formatStopsLabel(sheet.cost.stops)} more light).` : `This look ${sheet.cost.text}.`;
+    const h = heightOf(text, W - 16, true, 9.5) + 10;
+    doc.rect(L, y, W, h).fill(sheet.cost.ratio > 1.005 ? C.warnSoft : C.sunk);
+    font(true, 9.5).text(t(text), L + 8, y + 5, opts({ width: W - 16 }));
+    y += h;
+  }
+  y += 12;
+
+  // ---------------------------------------------------------------- key and zones
+  heading('Key and zones');
+  const th = sheet.thresholds;
+  font(false, 8.5, C.soft).text(t(`Key: ${sheet.key.description}. Texture is lost under ${th.shadowDetailStops.toFixed(1)} stops below the key and blows over ${th.highlightRollOffStops.toFixed(1)} stops above it.${sheet.boards.length ? ` Swatches from: ${sheet.boards.join(', ')}.` : ''}`), L, y, opts({ width: W }));
+  y = doc.y + 6;
+  ensure(30);
+  const zw = W / 11;
+  NUMERALS.forEach((n, z) => {
+    doc.rect(L + z * zw, y, zw, 14).fill(ZONE_GREYS[z]);
+    font(true, 7, z < 6 ? '#ffffff' : C.ink).text(n, L + z * zw, y + 4, opts({ width: zw, align: 'center' }));
+  });
+  doc.rect(L, y, W, 14).lineWidth(0.5).strokeColor(C.line).stroke();
+  y += 14;
+  for (const s of sheet.swatches) {
+    const x = L + Math.min(10.98, Math.max(0, s.zone + 0.5)) * zw;
+    doc.polygon([x, y + 1], [x - 3, y + 6], [x + 3, y + 6]).fill(s.lost || s.blown ? C.warn : C.ink);
+  }
+  y += 12;
+  if (sheet.swatches.length) {
+    const cols: Cell[] = [
+      { text: 'Colour · grey', w: 56 }, { text: 'Swatch', w: W - 56 - 128 - 54 - 46 - 46 - 62 }, { text: 'Board', w: 128 }, { text: 'Zone', w: 54, align: 'right' },
+      { text: 'Stops', w: 46, align: 'right' }, { text: 'Shift', w: 46, align: 'right' }, { text: 'Note', w: 62 },
+    ];
+    const header = () => headRow(cols);
+    header();
+    for (const s of sheet.swatches) {
+      if (y + 16 > bottom()) {
+        doc.addPage();
+        y = PAGE.margin;
+        header();
+      }
+      const y0 = y;
+      row(([
+        { ...cols[0], text: '' },
+        { ...cols[1], text: s.key ? `${s.name} (key)` : s.name, bold: s.key },
+        { ...cols[2], text: s.board, color: C.soft },
+        { ...cols[3], text: `${s.numeral} (${s.zone.toFixed(1)})` },
+        { ...cols[4], text: signed1(s.stops) },
+        { ...cols[5], text: signed1(s.shift), color: Math.abs(s.shift) >= 1 ? C.warn : C.ink },
+        { ...cols[6], text: s.lost ? 'texture lost' : s.blown ? 'blown' : '', color: C.warn },
+      ] as Cell[]).map((c) => ({ ...c, size: 8.5 })), L, 2.5);
+      const hh = y - y0 - 4;
+      doc.rect(L + 3, y0 + 2, 24, hh).fill(s.hex);
+      const g = Math.max(0, Math.min(255, s.grey)).toString(16).padStart(2, '0');
+      doc.rect(L + 27, y0 + 2, 24, hh).fill(`#${g}${g}${g}`);
+      doc.rect(L + 3, y0 + 2, 48, hh).lineWidth(0.4).strokeColor(C.line).stroke();
+    }
+    font(false, 7.5, C.mute).text(t(`Stops from middle grey on the medium with the key placed; shift = medium minus eye (+ reads lighter than it looks).${sheet.swatchesLeftOff ? ` ${sheet.swatchesLeftOff} more swatches are on the boards.` : ''}`), L, y + 3, opts({ width: W }));
+    y = doc.y + 10;
+  } else {
+    font(false, 8.5, C.mute).text('No board shows this look yet: add it to a board to list its swatches here.', L, y, opts({ width: W }));
+    y = doc.y + 10;
+  }
+
+  // ---------------------------------------------------------------- notes
+  if (sheet.notes.trim()) {
+    heading('Notes');
+    font(false, 9).text(t(sheet.notes.trim()), L, y, opts({ width: W }));
+    y = doc.y + 10;
+  }
+
+  // ---------------------------------------------------------------- cautions
+  const items = sheet.cautions.map((c) => ({ ...c, h: heightOf(`${c.title}. ${c.text}`, W - 24, false, 8.5) + 3 }));
+  const boxH = 26 + items.reduce((s, i) => s + i.h, 0);
+  ensure(boxH + 4);
+  doc.rect(L, y, W, boxH).lineWidth(1.2).fillAndStroke(C.warnSoft, C.warn);
+  font(true, 9, C.warn).text('CAUTIONS', L + 12, y + 8, opts({ characterSpacing: 0.8 }));
+  let cy = y + 21;
+  for (const c of items) {
+    font(true, 8.5).text(`${c.title}. `, L + 12, cy, opts({ width: W - 24, continued: true })).font(REG).text(t(c.text), opts({ width: W - 24 }));
+    cy += c.h;
+  }
+  y += boxH;
+
+  // ---------------------------------------------------------------- footers
+  const range = doc.bufferedPageRange();
+  for (let i = range.start; i < range.start + range.count; i++) {
+    doc.switchToPage(i);
+    doc.page.margins.bottom = 0; // the footer sits in the margin; without this pdfkit would start a new page
+    const fy = doc.page.height - PAGE.margin - 8;
+    font(false, 7, C.mute).text(t(`${sheet.production.name} · ${sheet.look.name} · model values: confirm with a meter and camera tests.`), L, fy, opts({ width: W - 60, lineBreak: false }));
+    font(false, 7, C.mute).text(`Page ${i + 1} of ${range.count}`, L + W - 60, fy, opts({ width: 60, align: 'right', lineBreak: false }));
+  }
+  doc.end();
+  return done;
+}

@@ -1,0 +1,175 @@
+/**
+ * The exposure sheet of a look: everything the camera crew and the gaffer take to set, worked out by the
+ * engine (shared/spectral via the looks module) and the tone model (shared/tone). Composition only.
+ */
+import type { DataSource } from 'typeorm';
+import { Look } from '../../db/entities/look.entity';
+import { Board } from '../../db/entities/board.entity';
+import { Swatch } from '../../db/entities/swatch.entity';
+import { Production } from '../../db/entities/production.entity';
+import { NotFoundError } from '../../errors';
+import { toneSettingsSchema, type EiChainStepAnswer, type ToneSettings } from '../../../shared/schemas/exposure';
+import { SHEET_CAUTIONS, type ExposureSheet, type SheetFactor, type SheetSwatch } from '../../../shared/schemas/sheet';
+import { eiChain, formatStops } from '../../../shared/tone/ei-chain';
+import { COMMON_T_STOPS, exposurePlan, lightLevelTable } from '../../../shared/tone/exposure-plan';
+import { DEFAULT_INCIDENT_C, DEFAULT_INCIDENT_C_NOTE } from '../../../shared/tone/light-level';
+import { buildTonePipeline, type TonePipeline } from '../../../shared/tone/tone-pipeline';
+import { developmentGammaFactor } from '../../../shared/tone/development';
+import { zoneNumeral } from '../../../shared/tone/zones';
+import { getUpsampleTable } from '../../services/upsample-table';
+import { loadCurves, refsOfLook, resolveLook } from '../looks/look-resolve';
+import { analyseLook } from '../looks/look-analysis';
+import { lookDefinition, prepareToneLooks, toneSwatches } from '../boards/tone.service';
+import { lookTones, toneMediumId } from '../boards/board-tones';
+
+/** At most this many swatches on a sheet (the rest are counted, not listed). */
+export const SHEET_MAX_SWATCHES = 30;
+
+const STEP_LABELS: Record<EiChainStepAnswer['step'], string> = { box: 'Box speed', rating: 'Development / rating', filter: 'Filter factor' };
+
+function halfOrThird(a: number): string {
+  const halves = Math.round(a * 2);
+  if (Math.abs(a * 2 - halves) < 1e-6 && halves % 2 === 1) return `${Math.floor(a) || ''}½`;
+  return formatStops(a).replace('+', '');
+}
+
+function developmentWords(p: TonePipeline, t: ToneSettings): string {
+  if (p.defaults.kind === 'eye') return 'none (the eye is the reference)';
+  if (p.defaults.kind === 'sensor') return 'none (sensor)';
+  const s = t.developmentStops;
+  if (Math.abs(s) < 1e-9) return 'normal development';
+  return `${s > 0 ? 'pushed' : 'pulled'} ${halfOrThird(Math.abs(s))} stop${Math.abs(s) > 1 ? 's' : ''} (gamma ×${developmentGammaFactor(s).toFixed(2)})`;
+}
+
+function printWords(p: TonePipeline, t: ToneSettings): string {
+  const exp = Math.abs(t.printExposureStops) < 1e-9 ? 'timed for zone V' : `${formatStops(t.printExposureStops)} stop${Math.abs(t.printExposureStops) > 1 ? 's' : ''} ${t.printExposureStops > 0 ? 'darker' : 'lighter'}`;
+  if (p.defaults.kind === 'eye') return 'shown as seen';
+  if (p.defaults.kind === 'sensor') return `display, contrast grade ${t.printGrade}, ${exp}`;
+  return `print, contrast grade ${t.printGrade}, ${exp}`;
+}
+
+export class SheetsService {
+  constructor(private ds: DataSource, private dataDir: string) {}
+
+  /** The sheet of look `lookId` of production `productionId`; NotFoundError when the look is not in it. */
+  async sheet(productionId: number, lookId: number): Promise<ExposureSheet> {
+    const em = this.ds.manager;
+    const look = await em.findOne(Look, { where: { id: lookId, production: { id: productionId } } });
+    if (!look) throw new NotFoundError('Look');
+    const production = await em.findOneByOrFail(Production, { id: productionId });
+    const tone = toneSettingsSchema.parse(look.tone ?? {});
+    const def = { ...lookDefinition(look), tone };
+
+    const curves = await loadCurves(em, productionId, refsOfLook(def));
+    const resolved = resolveLook(def, curves);
+    const analysis = analyseLook(resolved, tone);
+    const mediumId = toneMediumId(resolved);
+    const pipeline = buildTonePipeline({ mediumId, settings: tone, boxSpeed: tone.boxSpeed ?? undefined });
+
+    const factors: SheetFactor[] = [
+      { label: 'This look’s light', ...analysis.factor },
+      { label: 'Daylight', ...analysis.daylight },
+      { label: 'Tungsten', ...analysis.tungsten },
+    ];
+
+    const camera = { tStop: tone.tStop, fps: tone.fps, shutterAngle: tone.shutterAngle, calibrationConstant: tone.calibrationConstant };
+    const boxSpeed = tone.boxSpeed ?? pipeline.defaults.boxSpeed;
+    let chain: ExposureSheet['chain'] = null;
+    let lightLevels: ExposureSheet['lightLevels'] = [];
+    let cost: ExposureSheet['cost'] = null;
+    let exposureSeconds = camera.shutterAngle / (360 * camera.fps);
+    if (boxSpeed !== null) {
+      const plan = exposurePlan({ boxSpeed, ratingStops: tone.ratingStops, filterStops: analysis.factor.stops, ...camera });
+      exposureSeconds = plan.light.exposureSeconds;
+      chain = {
+        boxSpeed,
+        steps: plan.chain.steps.map((s) => ({ ...s, label: STEP_LABELS[s.step], stopsLabel: formatStops(s.stops) })),
+        totalStops: plan.chain.totalStops,
+        unfilteredEI: plan.chain.unfilteredEI,
+        effectiveEI: plan.chain.effectiveEI,
+        byLight: factors.slice(1).map((f) => ({
+          label: f.label,
+          light: f.light,
+          filterStops: f.stops,
+          effectiveEI: eiChain({ boxSpeed, ratingStops: tone.ratingStops, filterStops: f.stops }).effectiveEI,
+        })),
+      };
+      const stops = [...new Set([...COMMON_T_STOPS, camera.tStop])].sort((a, b) => a - b);
+      const open = lightLevelTable(plan.chain.unfilteredEI, camera, stops);
+      lightLevels = lightLevelTable(plan.chain.effectiveEI, camera, stops).map((r, i) => ({ ...r, unfilteredFootcandles: open[i].footcandles }));
+      cost = plan.cost;
+    }
+
+    const { swatches, left, boards } = await this.keySwatches(productionId, look, tone);
+    const keySwatch = tone.keySwatchId !== null ? await em.findOne(Swatch, { where: { id: tone.keySwatchId, production: { id: productionId } } }) : null;
+    return {
+      production: { id: production.id, name: production.name },
+      look: { id: look.id, name: look.name, notes: look.notes, updatedAt: new Date(look.updatedAt).toISOString() },
+      lightPath: {
+        light: resolved.bareLight.label,
+        filters: resolved.filters.map((f) => ({ label: f.label, on: f.on })),
+        medium: resolved.medium.label,
+        toneKind: pipeline.defaults.kind,
+        development: developmentWords(pipeline, tone),
+        print: printWords(pipeline, tone),
+      },
+      toneMediumId: mediumId,
+      tone,
+      factors,
+      chain,
+      camera: {
+        ...camera,
+        exposureSeconds,
+        calibrationNote: camera.calibrationConstant === DEFAULT_INCIDENT_C ? DEFAULT_INCIDENT_C_NOTE : `incident-light constant C = ${camera.calibrationConstant} lux·s as set for this look (E in lux)`,
+      },
+      lightLevels,
+      cost,
+      key: {
+        description: keySwatch ? `${keySwatch.name} placed on zone ${zoneNumeral(tone.keyZone)}` : `middle grey (18 %) on zone ${zoneNumeral(tone.keyZone)}`,
+        zone: tone.keyZone,
+        numeral: zoneNumeral(tone.keyZone),
+      },
+      thresholds: { shadowDetailStops: pipeline.shadowDetailStops, highlightRollOffStops: pipeline.highlightRollOffStops },
+      swatches,
+      swatchesLeftOff: left,
+      boards,
+      notes: look.notes,
+      cautions: SHEET_CAUTIONS,
+      generatedAt: new Date().toISOString(),
+    };
+  }
+
+  /** Swatches of the boards that show this look (plus its key swatch): key first, then lightest to darkest. */
+  private async keySwatches(productionId: number, look: Look, tone: ToneSettings): Promise<{ swatches: SheetSwatch[]; left: number; boards: string[] }> {
+    const em = this.ds.manager;
+    const all = await em.find(Board, { where: { production: { id: productionId } }, relations: { swatches: true }, order: { department: 'ASC', name: 'ASC', id: 'ASC' } });
+    const using = all.filter((b) => b.lookIds.includes(look.id));
+    const rows = new Map<number, { swatch: Swatch; board: string }>();
+    for (const b of using) for (const s of b.swatches) if (!rows.has(s.id)) rows.set(s.id, { swatch: s, board: b.name });
+    if (tone.keySwatchId !== null && !rows.has(tone.keySwatchId)) {
+      const k = await em.findOne(Swatch, { where: { id: tone.keySwatchId, production: { id: productionId } } });
+      if (k) rows.set(k.id, { swatch: k, board: '(key)' });
+    }
+    if (!rows.size) return { swatches: [], left: 0, boards: using.map((b) => b.name) };
+    const table = await getUpsampleTable(this.dataDir);
+    const list = [...rows.values()];
+    const [toneLook] = await prepareToneLooks(em, productionId, [{ ...lookDefinition(look), tone }], table);
+    const tones = lookTones(toneLook, toneSwatches(list.map((r) => r.swatch), table), 0, Infinity).tones;
+    const out: SheetSwatch[] = tones.map((t, i) => ({
+      swatchId: t.swatchId,
+      name: list[i].swatch.name,
+      hex: list[i].swatch.hex,
+      board: list[i].board,
+      stops: t.stops,
+      zone: t.zone,
+      numeral: t.numeral,
+      grey: t.grey,
+      shift: t.shift,
+      lost: t.lost,
+      blown: t.blown,
+      key: t.swatchId === tone.keySwatchId,
+    }));
+    out.sort((a, b) => Number(b.key) - Number(a.key) || b.stops - a.stops);
+    return { swatches: out.slice(0, SHEET_MAX_SWATCHES), left: Math.max(0, out.length - SHEET_MAX_SWATCHES), boards: using.map((b) => b.name) };
+  }
+}

@@ -1,0 +1,110 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import { Swatch } from '../../db/entities/swatch.entity';
+import type { Membership } from '../../db/entities/membership.entity';
+import { NotFoundError } from '../../errors';
+import { reflectanceFromPairs } from '../../../shared/spectral/bases';
+import { toPairs } from '../../../shared/spectral/spectrum';
+import type { Department } from '../../../shared/schemas/roles';
+import { swatchCreateSchema, swatchUpdateSchema, type SwatchOrigin, type SwatchView } from '../../../shared/schemas/swatch';
+import type { z } from 'zod';
+import { readTable, withTableErrors } from '../library/table-input';
+import { assertDepartmentAccess } from './department-access';
+import { hexOfColour, hexOfReflectance } from './swatch-colour';
+import { estimatedPairs } from './swatch-spectra';
+import { getUpsampleTable } from '../../services/upsample-table';
+import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
+
+type CreateInput = z.infer<typeof swatchCreateSchema>;
+type UpdateInput = z.infer<typeof swatchUpdateSchema>;
+type OriginInput = CreateInput['origin'];
+
+/** Rounds grid values for storage (reflectance to 6 decimals is far below any measurement's noise). */
+const round6 = (v: number) => Math.round(v * 1e6) / 1e6;
+
+/** Turns an origin as given into what a swatch stores: origin, display hex, measured reflectance or null. */
+export function resolveSwatchOrigin(o: OriginInput, field = 'origin'): { origin: SwatchOrigin; hex: string; reflectance: [number, number][] | null } {
+  if (o.type === 'colour') return { origin: { type: 'colour', colour: o.colour }, hex: hexOfColour(o.colour, `${field}.colour`), reflectance: null };
+  if (o.type === 'photo') return { origin: { type: 'photo', photoId: o.photoId, rect: o.rect, colour: o.colour }, hex: hexOfColour(o.colour, `${field}.colour`), reflectance: null };
+  const table = readTable(o.table, `${field}.table`);
+  const r = withTableErrors(table, `${field}.table`, (pairs) => reflectanceFromPairs(pairs, o.basis));
+  return {
+    origin: { type: 'measured', basis: o.basis, fileName: table.fileName, points: table.pairs.length },
+    hex: hexOfReflectance(r),
+    reflectance: toPairs(r).map(([nm, v]) => [nm, round6(v)]),
+  };
+}
+
+/** A swatch for the API; with `table`, its reflectance (measured, or the estimate) is included. */
+export function swatchView(s: Swatch, table?: UpsampleTable): SwatchView {
+  const v: SwatchView = {
+    id: s.id,
+    name: s.name,
+    department: s.department,
+    notes: s.notes,
+    origin: s.origin,
+    hex: s.hex,
+    spectrum: s.reflectance ? 'measured' : 'estimated',
+    createdBy: s.createdBy ? { id: s.createdBy.id, name: s.createdBy.name } : null,
+    createdAt: new Date(s.createdAt).toISOString(),
+    updatedAt: new Date(s.updatedAt).toISOString(),
+  };
+  if (table) v.reflectance = s.reflectance ?? estimatedPairs(s.hex, table);
+  return v;
+}
+
+export class SwatchesService {
+  constructor(private ds: DataSource, private dataDir: string) {}
+
+  private table() {
+    return getUpsampleTable(this.dataDir);
+  }
+
+  async list(productionId: number, opts: { department?: Department; spectra?: boolean } = {}) {
+    const rows = await this.ds.getRepository(Swatch).find({
+      where: { production: { id: productionId }, ...(opts.department ? { department: opts.department } : {}) },
+      relations: { createdBy: true },
+      order: { department: 'ASC', name: 'ASC', id: 'ASC' },
+    });
+    const table = opts.spectra ? await this.table() : undefined;
+    return rows.map((s) => swatchView(s, table));
+  }
+
+  async entity(productionId: number, id: number, em: EntityManager = this.ds.manager): Promise<Swatch> {
+    const s = await em.findOne(Swatch, { where: { id, production: { id: productionId } }, relations: { createdBy: true } });
+    if (!s) throw new NotFoundError('Swatch');
+    return s;
+  }
+
+  async get(productionId: number, id: number) {
+    return swatchView(await this.entity(productionId, id), await this.table());
+  }
+
+  async create(m: Membership, input: CreateInput, em: EntityManager = this.ds.manager) {
+    const department = input.department ?? m.department;
+    assertDepartmentAccess(m, department, 'swatches');
+    const resolved = resolveSwatchOrigin(input.origin);
+    const s = await em.save(Swatch, em.create(Swatch, { production: m.production, department, name: input.name, notes: input.notes, ...resolved, createdBy: m.user }));
+    return swatchView(s, await this.table());
+  }
+
+  async update(m: Membership, id: number, input: UpdateInput) {
+    return this.ds.transaction(async (t) => {
+      const s = await this.entity(m.production.id, id, t);
+      assertDepartmentAccess(m, s.department, 'swatches');
+      if (input.department && input.department !== s.department) assertDepartmentAccess(m, input.department, 'swatches');
+      if (input.origin) Object.assign(s, resolveSwatchOrigin(input.origin));
+      if (input.name !== undefined) s.name = input.name;
+      if (input.notes !== undefined) s.notes = input.notes;
+      if (input.department) s.department = input.department;
+      return swatchView(await t.save(s), await this.table());
+    });
+  }
+
+  async remove(m: Membership, id: number) {
+    await this.ds.transaction(async (t) => {
+      const s = await this.entity(m.production.id, id, t);
+      assertDepartmentAccess(m, s.department, 'swatches');
+      await t.remove(s);
+    });
+  }
+}

@@ -1,0 +1,55 @@
+/**
+ * The photo look-up table, 1-D part: stops on the medium (before key placement) → the output grey,
+ * a look's tone pipeline (shared/tone/tone-pipeline.ts: key placement, characteristic curve and
+ * development, print or display, IEC 61966-2-1 encoding) sampled finely along stops once per look.
+ * Between samples: linear interpolation; beyond the range, the end values hold.
+ */
+import type { TonePipeline } from '../tone/tone-pipeline';
+import { FLOOR_STOPS } from '../spectral/limits';
+
+/** The stops range tabulated (before key placement): the engine's floor to well past paper white. */
+export const TONE_TABLE_STOPS: readonly [number, number] = [FLOOR_STOPS, 4];
+/** Samples of the tabulated tone curve: 1/256 stop apart. */
+export const TONE_TABLE_SAMPLES = (TONE_TABLE_STOPS[1] - TONE_TABLE_STOPS[0]) * 256 + 1;
+
+/** A look's tone curve along stops. */
+export interface ToneCurveTable {
+  /** stops of sample 0 (before key placement) */
+  readonly minStops: number;
+  /** stops between samples */
+  readonly step: number;
+  /** output grey at each sample, sRGB-encoded 0..1 */
+  readonly grey: Float32Array;
+  /** the key placement the pipeline applies, stops (zone = 5 + stops + offsetStops) */
+  readonly offsetStops: number;
+}
+
+/** Tabulates a look's tone pipeline over TONE_TABLE_STOPS (stops before key placement → sRGB grey 0..1). */
+export function toneCurveTable(pipeline: TonePipeline, samples: number = TONE_TABLE_SAMPLES): ToneCurveTable {
+  const [lo, hi] = TONE_TABLE_STOPS;
+  const step = (hi - lo) / (samples - 1);
+  const grey = new Float32Array(samples);
+  let offsetStops = 0;
+  for (let i = 0; i < samples; i++) {
+    const s = lo + i * step;
+    const t = pipeline.renderStops(s);
+    grey[i] = t.srgb;
+    if (i === samples - 1) offsetStops = t.stops - s;
+  }
+  return { minStops: lo, step, grey, offsetStops };
+}
+
+/** Output grey (sRGB-encoded 0..1) of a tone `stops` from middle grey (before key placement). */
+export function greyOfStops(t: ToneCurveTable, stops: number): number {
+  const last = t.grey.length - 1;
+  const x = (stops - t.minStops) / t.step;
+  if (!(x > 0)) return t.grey[0];
+  if (x >= last) return t.grey[last];
+  const i = Math.floor(x);
+  return t.grey[i] + (x - i) * (t.grey[i + 1] - t.grey[i]);
+}
+
+/** Zone (5 + stops after key placement, unrounded) of a tone `stops` before placement. */
+export function zoneOfStops(t: ToneCurveTable, stops: number): number {
+  return 5 + stops + t.offsetStops;
+}

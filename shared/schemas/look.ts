@@ -1,0 +1,100 @@
+import { z } from 'zod';
+import { toneSettingsSchema, type ToneSettings } from './exposure';
+import { filterRefSchema, lightRefSchema, mediumRefSchema, type FilterRef, type LightRef, type MediumRef } from './curve';
+
+/** Where a filter of a look sits: on the lens (the camera sees through it) or on the light (a gel on the lamps). */
+export const FILTER_PLACES = ['lens', 'light'] as const;
+export type FilterPlace = (typeof FILTER_PLACES)[number];
+
+/** At most this many filters in a look's stack. */
+export const MAX_LOOK_FILTERS = 8;
+/** Compare at most this many looks side by side. */
+export const MAX_COMPARE_LOOKS = 4;
+
+export const lookFilterSchema = z.strictObject({ filter: filterRefSchema, on: z.enum(FILTER_PLACES).default('lens') });
+export type LookFilter = z.infer<typeof lookFilterSchema>;
+export type LookLight = LightRef;
+export type LookMedium = MediumRef;
+
+const name = z.string().trim().min(1, 'Give it a name.').max(120, 'At most 120 characters.');
+
+/** The light path of a look: light → (surface) → ordered filters → medium; tone settings carry development and print. */
+export const lookDefinitionSchema = z.strictObject({
+  light: lightRefSchema,
+  filters: z.array(lookFilterSchema).max(MAX_LOOK_FILTERS, `At most ${MAX_LOOK_FILTERS} filters.`).default([]),
+  medium: mediumRefSchema,
+  tone: toneSettingsSchema.default(toneSettingsSchema.parse({})),
+});
+export type LookDefinition = z.infer<typeof lookDefinitionSchema>;
+export type LookDefinitionInput = z.input<typeof lookDefinitionSchema>;
+
+export const lookCreateSchema = lookDefinitionSchema.extend({ name, notes: z.string().max(4000).default('') });
+export type LookCreateInput = z.input<typeof lookCreateSchema>;
+
+export const lookUpdateSchema = z
+  .strictObject({
+    name: name.optional(),
+    notes: z.string().max(4000).optional(),
+    light: lightRefSchema.optional(),
+    filters: z.array(lookFilterSchema).max(MAX_LOOK_FILTERS, `At most ${MAX_LOOK_FILTERS} filters.`).optional(),
+    medium: mediumRefSchema.optional(),
+    tone: toneSettingsSchema.optional(),
+  })
+  .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change.' });
+export type LookUpdateInput = z.input<typeof lookUpdateSchema>;
+
+export const lookDuplicateSchema = z.strictObject({ name: name.optional() });
+
+/** Body of POST …/looks/analyse: an unsaved look (the bench while it is edited), optionally with a board's swatches. */
+export const lookAnalyseSchema = z.strictObject({ look: lookDefinitionSchema, boardId: z.number().int().positive().optional() });
+export type LookAnalyseInput = z.input<typeof lookAnalyseSchema>;
+
+export interface LookView {
+  id: number;
+  name: string;
+  notes: string;
+  light: LightRef;
+  filters: LookFilter[];
+  medium: MediumRef;
+  tone: ToneSettings;
+  createdBy: { id: number; name: string } | null;
+  createdAt: string;
+  updatedAt: string;
+}
+
+/** A curve of the light path on the grid, for the sparkline and the chart. */
+export interface PathCurve {
+  /** 'light' | 'filter' | 'medium' | 'eye' | 'product' */
+  role: 'light' | 'filter' | 'medium' | 'eye' | 'product';
+  label: string;
+  /** where it came from (library item, production curve, inline) */
+  source: string;
+  /** filters only */
+  on?: FilterPlace;
+  /** values on the working grid (380–780 nm, 5 nm), as the engine holds them */
+  values: number[];
+}
+
+/** Filter factor of the look's filters for one light. */
+export interface FactorForLight {
+  light: string;
+  factor: number;
+  stops: number;
+  opaque: boolean;
+}
+
+/** Answer of GET …/looks/:id/analysis and POST …/looks/analyse. */
+export interface LookAnalysis {
+  /** wavelengths of `values`, nm */
+  nm: number[];
+  curves: PathCurve[];
+  /** for the look's own light, and for daylight and tungsten */
+  factor: FactorForLight;
+  daylight: FactorForLight;
+  tungsten: FactorForLight;
+  /** the medium's tone model: negative (curve + print), sensor (display) or eye */
+  toneKind: 'negative' | 'sensor' | 'eye';
+  /** rated EI (box speed with the rating), when the medium has one */
+  ratedEI: number | null;
+  ms: number;
+}

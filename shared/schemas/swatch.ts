@@ -1,0 +1,93 @@
+import { z } from 'zod';
+import { departmentSchema, type Department } from './roles';
+
+/** Largest text of a measured-reflectance file accepted, characters. */
+export const MAX_TABLE_CHARS = 500_000;
+/** At most this many `[nm, value]` pairs given directly. */
+export const MAX_TABLE_PAIRS = 4000;
+
+const name = z.string().trim().min(1, 'Give it a name.').max(120, 'At most 120 characters.');
+const notes = z.string().max(4000, 'At most 4000 characters.');
+const pair = z.tuple([z.number(), z.number()]);
+export const pairsSchema = z.array(pair).min(3, 'At least 3 points.').max(MAX_TABLE_PAIRS, `At most ${MAX_TABLE_PAIRS} points.`);
+
+export const hexSchema = z
+  .string()
+  .trim()
+  .regex(/^#([0-9a-fA-F]{6}|[0-9a-fA-F]{3})$/, 'A colour like #a33b3b.')
+  .transform((s) => s.toLowerCase());
+
+/** A colour given by a person: sRGB hex, sRGB 0..255, or CIE L*a*b* (D65) inside the sRGB gamut. */
+export const colourInputSchema = z.discriminatedUnion('space', [
+  z.object({ space: z.literal('hex'), hex: hexSchema }),
+  z.object({ space: z.literal('rgb'), rgb: z.tuple([z.number().min(0).max(255), z.number().min(0).max(255), z.number().min(0).max(255)]) }),
+  z.object({ space: z.literal('lab'), lab: z.tuple([z.number().min(0).max(100), z.number().min(-128).max(128), z.number().min(-128).max(128)]) }),
+]);
+export type ColourInput = z.infer<typeof colourInputSchema>;
+
+export const REFLECTANCE_BASES = ['fraction', 'percent'] as const;
+export const reflectanceBasisSchema = z.enum(REFLECTANCE_BASES);
+
+/** A table of wavelength and value: the text of a CSV/TSV/semicolon file, or pairs. Exactly one. */
+export const tableInputSchema = z
+  .object({
+    text: z.string().max(MAX_TABLE_CHARS, 'The file is too large.').optional(),
+    samples: pairsSchema.optional(),
+    fileName: z.string().trim().max(200).optional(),
+    /** 0-based column of the values in the file (default 1) */
+    valueColumn: z.number().int().min(1).max(20).optional(),
+  })
+  .refine((t) => (t.text === undefined) !== (t.samples === undefined), { message: 'Give either the file text or the samples.', path: ['text'] });
+
+/** How a swatch is given. */
+export const swatchOriginInputSchema = z.discriminatedUnion('type', [
+  z.object({ type: z.literal('colour'), colour: colourInputSchema }),
+  z.object({ type: z.literal('measured'), basis: reflectanceBasisSchema, table: tableInputSchema }),
+  z.object({
+    type: z.literal('photo'),
+    photoId: z.number().int().positive(),
+    /** region in the photo's pixels: x, y, width, height */
+    rect: z.tuple([z.number().int().min(0), z.number().int().min(0), z.number().int().positive(), z.number().int().positive()]),
+    /** the region's mean colour */
+    colour: colourInputSchema,
+  }),
+]);
+export type SwatchOriginInput = z.infer<typeof swatchOriginInputSchema>;
+
+/** What a swatch keeps of its origin (the measured pairs themselves are kept on the swatch). */
+export type SwatchOrigin =
+  | { type: 'colour'; colour: ColourInput }
+  | { type: 'measured'; basis: (typeof REFLECTANCE_BASES)[number]; fileName: string | null; points: number }
+  | { type: 'photo'; photoId: number; rect: [number, number, number, number]; colour: ColourInput };
+
+export const swatchCreateSchema = z.object({
+  name,
+  /** default: the creator's department */
+  department: departmentSchema.optional(),
+  notes: notes.default(''),
+  origin: swatchOriginInputSchema,
+});
+export type SwatchCreateInput = z.input<typeof swatchCreateSchema>;
+
+export const swatchUpdateSchema = z
+  .object({ name: name.optional(), department: departmentSchema.optional(), notes: notes.optional(), origin: swatchOriginInputSchema.optional() })
+  .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change.' });
+export type SwatchUpdateInput = z.input<typeof swatchUpdateSchema>;
+
+/** A swatch as the API answers it. */
+export interface SwatchView {
+  id: number;
+  name: string;
+  department: Department;
+  notes: string;
+  origin: SwatchOrigin;
+  /** its colour to the eye, sRGB */
+  hex: string;
+  /** 'measured' when a reflectance was given; else the spectrum is estimated from the colour */
+  spectrum: 'measured' | 'estimated';
+  /** the reflectance on the grid ([nm, 0..1]); measured, or the estimate */
+  reflectance?: [number, number][];
+  createdBy: { id: number; name: string } | null;
+  createdAt: string;
+  updatedAt: string;
+}

@@ -1,0 +1,10 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import type { BoardCreateInput, BoardView } from '../../../../shared/schemas/board';
+import { boardsQueryOptions } from './get-boards';
+
+export const createBoard = ({ pid, ...input }: BoardCreateInput & { pid: number }) => api.post<{ board: BoardView }>(`/api/productions/${pid}/boards`, input);
+export function useCreateBoard(pid: number) {
+  const qc = useQueryClient();
+  return useMutation({ mutationFn: createBoard, onSuccess: () => qc.invalidateQueries({ queryKey: boardsQueryOptions(pid).queryKey }) });
+}

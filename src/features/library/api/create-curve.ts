@@ -1,0 +1,10 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import type { CurveCreateInput, CurveView } from '../../../../shared/schemas/curve';
+import { curvesQueryOptions } from './get-curves';
+
+export const createCurve = ({ pid, ...input }: CurveCreateInput & { pid: number }) => api.post<{ curve: CurveView }>(`/api/productions/${pid}/curves`, input);
+export function useCreateCurve(pid: number) {
+  const qc = useQueryClient();
+  return useMutation({ mutationFn: createCurve, onSuccess: () => qc.invalidateQueries({ queryKey: curvesQueryOptions(pid).queryKey }) });
+}

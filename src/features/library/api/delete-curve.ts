@@ -1,0 +1,9 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import { curvesQueryOptions } from './get-curves';
+
+export const deleteCurve = ({ pid, id }: { pid: number; id: number }) => api.delete<void>(`/api/productions/${pid}/curves/${id}`);
+export function useDeleteCurve(pid: number) {
+  const qc = useQueryClient();
+  return useMutation({ mutationFn: deleteCurve, onSuccess: () => qc.invalidateQueries({ queryKey: curvesQueryOptions(pid).queryKey }) });
+}

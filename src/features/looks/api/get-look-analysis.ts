@@ -1,0 +1,11 @@
+import { queryOptions, useQuery, useQueries } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import type { LookAnalysis } from '../../../../shared/schemas/look';
+import { lookQueryOptions } from './get-look';
+
+export const getLookAnalysis = (pid: number, id: number) => api.get<{ analysis: LookAnalysis }>(`/api/productions/${pid}/looks/${id}/analysis`);
+export const lookAnalysisQueryOptions = (pid: number, id: number) =>
+  queryOptions({ queryKey: [...lookQueryOptions(pid, id).queryKey, 'analysis'], queryFn: () => getLookAnalysis(pid, id), enabled: pid > 0 && id > 0 });
+export const useLookAnalysis = (pid: number, id: number) => useQuery(lookAnalysisQueryOptions(pid, id));
+/** Analyses of several looks at once (compare). */
+export const useLookAnalyses = (pid: number, ids: number[]) => useQueries({ queries: ids.map((id) => lookAnalysisQueryOptions(pid, id)) });

@@ -1,0 +1,8 @@
+import { useMutation } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import type { RenderRequestInput, RenderStatus } from '../../../../shared/schemas/photo';
+
+/** Starts a full-resolution render (or finds it in the cache). */
+export const startRender = ({ pid, photoId, ...input }: RenderRequestInput & { pid: number; photoId: number }) =>
+  api.post<{ render: RenderStatus }>(`/api/productions/${pid}/photos/${photoId}/renders`, input);
+export const useStartRender = () => useMutation({ mutationFn: startRender });

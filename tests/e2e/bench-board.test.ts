@@ -1,0 +1,145 @@
+/**
+ * The bench and the boards in the real built app (headless Chromium): build a look from scratch (medium,
+ * filter, light) and watch the filter factor follow; add a lip colour by hex as the makeup member and see
+ * its zone through each look and on the board; the costume member finds two fabrics that merge.
+ */
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { launchBrowser, shot as shotAt, signIn, startServer, type RunningApp } from '../helpers/browser';
+
+let app: RunningApp;
+let browser: Browser;
+let pid = 0;
+beforeAll(async () => {
+  app = await startServer();
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await app?.stop();
+});
+
+async function page(email: string): Promise<{ p: Page; errors: string[] }> {
+  const p = await browser.newPage({ viewport: { width: 1366, height: 900 } });
+  const errors: string[] = [];
+  p.on('pageerror', (e) => errors.push(e.message));
+  await signIn(p, app.url, email);
+  pid = await p.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
+  return { p, errors };
+}
+
+/** Full-page screenshot from the top (the sticky header would otherwise sit mid-page). */
+async function shot(p: Page, name: string) {
+  await p.evaluate(() => window.scrollTo(0, 0));
+  return shotAt(p, name);
+}
+
+const mainFactor = (p: Page) => p.getByTestId('factor-main').innerText();
+
+it('builds a look from scratch on the bench and the filter factor follows the filter and the light', async () => {
+  const { p, errors } = await page('camera@demo.grisaille.test');
+  await p.goto(`${app.url}/p/${pid}/bench/new`);
+  await p.getByLabel('Look name').fill('Test: built from scratch');
+  await p.getByLabel('Medium', { exact: true }).selectOption({ label: 'Orthochromatic emulsion' });
+  await p.getByLabel('Medium', { exact: true }).selectOption({ label: 'Panchromatic negative' });
+  await p.getByTestId('factor-main').getByText('0.00 st').waitFor();
+  const before = await mainFactor(p);
+  await p.getByRole('button', { name: '+ Add a filter' }).click();
+  await p.getByLabel('Filter 1', { exact: true }).selectOption({ label: 'Cyan short-pass 530 nm (red-absorbing)' });
+  await p.waitForFunction(() => !document.querySelector('[data-testid="factor-main"]')?.textContent?.includes('0.00 st'));
+  await p.waitForFunction(() => !document.querySelector('[aria-label="Filter factor"]')?.getAttribute('aria-busy')?.includes('true'));
+  const withCyanTungsten = await mainFactor(p);
+  expect(withCyanTungsten).not.toBe(before);
+  await p.getByLabel('Light', { exact: true }).selectOption({ label: 'Daylight D65' });
+  await p.getByTestId('factor-main').getByText('Daylight D65').waitFor();
+  await p.waitForFunction(() => document.querySelector('[aria-label="Filter factor"]')?.getAttribute('aria-busy') === 'false');
+  const withCyanDaylight = await mainFactor(p);
+  expect(withCyanDaylight).not.toBe(withCyanTungsten);
+  // the cyan costs more under tungsten than in daylight (tungsten is mostly red): read the stops
+  const stops = (s: string) => Number(/(\d+\.\d+) st/.exec(s)![1]);
+  expect(stops(withCyanTungsten)).toBeGreaterThan(stops(withCyanDaylight));
+  await shot(p, 'bench-01-look-from-scratch');
+  await p.getByRole('button', { name: 'Save as a look' }).click();
+  await p.waitForURL(/\/bench\/\d+$/);
+  await p.getByText('Test: built from scratch').first().waitFor();
+  await shot(p, 'bench-02-saved-look');
+  await p.goto(`${app.url}/p/${pid}/looks`);
+  await p.getByRole('heading', { name: 'Test: built from scratch' }).waitFor();
+  await p.getByRole('checkbox', { name: 'Compare' }).nth(0).check();
+  await p.getByRole('checkbox', { name: 'Compare' }).nth(1).check();
+  await p.getByRole('button', { name: /Compare \(2\)/ }).click();
+  await p.getByRole('heading', { name: 'Compare looks' }).waitFor();
+  await p.getByTestId('split-chip').first().waitFor();
+  await shot(p, 'bench-03-compare');
+  expect(errors).toEqual([]);
+});
+
+it('the makeup member adds a lip colour by hex, sees its zone through each look, and finds it on the board', async () => {
+  const { p, errors } = await page('makeup@demo.grisaille.test');
+  await p.goto(`${app.url}/p/${pid}/swatches`);
+  const form = p.getByRole('form', { name: 'Add a swatch' });
+  await form.getByLabel('Name').fill('Lip colour, test red');
+  await form.getByLabel('sRGB hex').fill('#9e2b35');
+  await form.getByRole('button', { name: 'Add swatch' }).click();
+  await p.getByRole('heading', { name: 'Lip colour, test red' }).waitFor();
+  await p.getByTestId('swatch-look-tone').first().waitFor();
+  const zones = await p.getByTestId('swatch-look-tone').allInnerTexts();
+  expect(zones.length).toBeGreaterThanOrEqual(3);
+  const byLook = Object.fromEntries(zones.map((z) => [z.split('\n')[0], /zone ([0IVX]+)/.exec(z)?.[1]]));
+  expect(byLook['Panchromatic + red-absorbing cyan']).toBeDefined();
+  expect(byLook['Panchromatic + red-absorbing cyan']).not.toBe(byLook['Panchromatic, no filter']);
+  expect(await p.getByText('estimated spectrum').count()).toBeGreaterThan(0);
+  await shot(p, 'board-01-lip-colour-zones');
+  await p.getByLabel('Put on board').selectOption({ label: 'Principal makeup' });
+  await p.getByRole('button', { name: 'Add', exact: true }).click();
+  await p.getByRole('link', { name: 'Open the board' }).click();
+  await p.getByRole('heading', { name: 'Principal makeup' }).waitFor();
+  const chip = p.getByTestId('split-chip').filter({ hasText: 'Lip colour, test red' }).first();
+  await chip.waitFor();
+  expect(await chip.getAttribute('data-zone')).toMatch(/^(0|I|II|III|IV|V|VI|VII|VIII|IX|X)$/);
+  await shot(p, 'board-02-makeup-board');
+  await p.getByRole('button', { name: 'Table' }).click();
+  await p.getByRole('button', { name: /^Zone · Panchromatic, no filter/ }).click();
+  await p.getByRole('cell', { name: 'Lip colour, test red', exact: true }).waitFor();
+  await shot(p, 'board-03-makeup-table');
+  const download = p.waitForEvent('download');
+  await p.getByRole('button', { name: 'Export CSV' }).click();
+  expect((await download).suggestedFilename()).toBe('principal-makeup.csv');
+  expect(errors).toEqual([]);
+});
+
+it('the costume member spots two fabrics that merge', async () => {
+  const { p, errors } = await page('costume@demo.grisaille.test');
+  await p.goto(`${app.url}/p/${pid}/boards`);
+  await p.getByRole('link', { name: 'Workshop wardrobe' }).click();
+  await p.getByRole('heading', { name: 'Workshop wardrobe' }).waitFor();
+  await p.getByTestId('merge').first().waitFor();
+  expect(await p.getByTestId('merge').count()).toBeGreaterThan(0);
+  // keyboard: the ruler's pins take focus and name their swatch and zone
+  await p.getByTestId('ruler-pin').first().focus();
+  expect(await p.evaluate(() => document.activeElement?.getAttribute('aria-label'))).toMatch(/zone/);
+  await shot(p, 'board-04-costume-merges');
+  expect(errors).toEqual([]);
+});
+
+it('the gaffer uploads a filter table to the library: a bad line is named, a good file is previewed and saved', async () => {
+  const { p, errors } = await page('gaffer@demo.grisaille.test');
+  await p.goto(`${app.url}/p/${pid}/library`);
+  await p.getByRole('button', { name: /Cyan short-pass 530 nm/ }).click();
+  await p.getByText(/generic model of a typical shape/).first().waitFor();
+  const form = p.getByRole('form', { name: 'Upload a curve' });
+  await form.getByLabel('Values are').selectOption({ label: 'transmittance in %' });
+  const bad = 'Invented pale gel\nnm;T (%)\n400;80,0\n550;;\n700;85,5\n';
+  await form.locator('input[type=file]').setInputFiles({ name: 'pale-gel.csv', mimeType: 'text/csv', buffer: Buffer.from(bad) });
+  await form.getByText('line 4: there is no value after 550 nm').waitFor();
+  await shot(p, 'library-01-bad-line');
+  const good = 'Invented pale gel\nnm;T (%)\n' + Array.from({ length: 41 }, (_, i) => `${380 + 10 * i};${(60 + 30 * Math.sin(i / 6)).toFixed(1).replace('.', ',')}`).join('\n');
+  await form.locator('input[type=file]').setInputFiles({ name: 'pale-gel.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
+  await form.getByText(/Preview: 41 points, 2 header lines, decimal commas/).waitFor();
+  await form.getByLabel('Name').fill('Pale gel (test)');
+  await form.getByRole('button', { name: 'Save to the library' }).click();
+  await p.getByText('Saved “Pale gel (test)” to the library.').waitFor();
+  await p.getByText(/uploaded file pale-gel\.csv: 41 points over 380–780 nm, transmittance in %, decimal commas/).waitFor();
+  await shot(p, 'library-02-saved-curve');
+  expect(errors).toEqual([]);
+});
