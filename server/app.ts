@@ -19,7 +19,8 @@ import { teamRouter } from './modules/team/team.router';
 import { outboxRouter } from './modules/outbox/outbox.router';
 import { csrfCheck } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
-import { NotFoundError } from './errors';
+import { AppError, NotFoundError } from './errors';
+import rateLimit from 'express-rate-limit';
 // ROUTER IMPORTS START
 import { exposureRouter } from './modules/exposure/exposure.router';
 import { simulateRouter } from './modules/simulate/simulate.router';
@@ -88,6 +89,17 @@ export async function createApp(opts: CreateAppOptions = {}): Promise<GrisailleA
   app.use(pp.initialize());
   app.use(pp.session());
   app.use('/api', csrfCheck);
+  app.use(
+    '/api',
+    rateLimit({
+      windowMs: 60 * 1000,
+      limit: env.writeRateLimit,
+      skip: (req) => ['GET', 'HEAD', 'OPTIONS'].includes(req.method),
+      standardHeaders: 'draft-8',
+      legacyHeaders: false,
+      handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many changes in a minute; wait a moment and try again.')),
+    }),
+  );
 
   app.get('/api/health', async (_req, res, next) => {
     try {

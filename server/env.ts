@@ -13,6 +13,8 @@ export interface Env {
   mailFrom: string;
   /** limits on the auth routes (requests per window); tests lift them */
   authRateLimit: number;
+  /** limit on state-changing API requests (POST/PUT/PATCH/DELETE) per minute per address */
+  writeRateLimit: number;
 }
 
 export function loadEnv(overrides: Partial<Env> = {}): Env {
@@ -32,6 +34,7 @@ export function loadEnv(overrides: Partial<Env> = {}): Env {
     smtp,
     mailFrom: e.MAIL_FROM ?? 'Grisaille <no-reply@grisaille.test>',
     authRateLimit: Number(e.AUTH_RATE_LIMIT ?? 30),
+    writeRateLimit: Number(e.WRITE_RATE_LIMIT ?? 600),
     ...overrides,
   };
 }

@@ -130,3 +130,18 @@ describe('rate limits', () => {
     }
   });
 });
+
+describe('rate limit on changes', () => {
+  it('limits state-changing requests, not reads', async () => {
+    const limited = await startTestApp({ env: { writeRateLimit: 2 } });
+    try {
+      const a = await limited.agent('camera@demo.grisaille.test'); // the sign-in is the first change
+      const codes: number[] = [];
+      for (let i = 0; i < 3; i++) codes.push((await a.post('/api/productions').send({ name: `P${i}` })).status);
+      expect(codes).toEqual([201, 429, 429]);
+      expect((await a.get('/api/productions')).status).toBe(200);
+    } finally {
+      await limited.close();
+    }
+  });
+});

@@ -25,7 +25,7 @@ export interface TestApp extends GrisailleApp {
 export async function startTestApp(opts: { seed?: boolean; env?: Partial<Env> } = {}): Promise<TestApp> {
   process.env.NODE_ENV = 'test';
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'grisaille-test-'));
-  const g = await createApp({ env: { dataDir, demo: true, nodeEnv: 'test', authRateLimit: 10_000, publicUrl: 'http://localhost:5178', ...opts.env }, seed: opts.seed ?? true, serveClient: false });
+  const g = await createApp({ env: { dataDir, demo: true, nodeEnv: 'test', authRateLimit: 10_000, writeRateLimit: 100_000, publicUrl: 'http://localhost:5178', ...opts.env }, seed: opts.seed ?? true, serveClient: false });
   const prod = await g.ctx.ds.getRepository(Production).findOneBy({ name: DEMO_PRODUCTION_NAME });
   const app: Express = g.app;
   return {

@@ -32,7 +32,7 @@ export async function startServer(): Promise<RunningApp> {
   const port = await freePort();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'grisaille-e2e-'));
   const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, PORT: String(port), DATA_DIR: dataDir, NODE_ENV: 'test', AUTH_RATE_LIMIT: '10000' },
+    env: { ...process.env, PORT: String(port), DATA_DIR: dataDir, NODE_ENV: 'test', AUTH_RATE_LIMIT: '10000', WRITE_RATE_LIMIT: '100000' },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let log = '';
