@@ -5,7 +5,10 @@ import { InvalidError } from '../errors';
 /** Turns the first zod issue into a 400 naming the field path, e.g. `swatches.2.srgb`. */
 export function zodToInvalid(err: z.ZodError): InvalidError {
   const issue = err.issues[0];
-  const field = issue?.path.map(String).join('.') || undefined;
+  const path = issue?.path.map(String) ?? [];
+  // an unknown key is named by the key itself
+  if (issue && issue.code === 'unrecognized_keys' && 'keys' in issue && Array.isArray(issue.keys) && issue.keys.length) path.push(String(issue.keys[0]));
+  const field = path.join('.') || undefined;
   const message = field ? `${field}: ${issue.message}` : (issue?.message ?? 'Invalid input.');
   return new InvalidError(message, field);
 }

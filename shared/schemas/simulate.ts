@@ -3,12 +3,14 @@
  * (`lightSourceSchema`, `filterSourceSchema`, `mediumSourceSchema`, `swatchSourceSchema`).
  * Each source is an object with exactly one form key; samples are checked by the engine's own reader,
  * so a form, the server and the engine refuse the same things with the same messages.
+ * Also the answer types of GET /api/library (`LibraryView`, `LibraryItemView`).
  * Documented in docs/api-simulate.md.
  */
 import { z } from 'zod';
 import { FILTER_BASES, MEDIUM_BASES, REFLECTANCE_BASES, filterFromPairs, lightFromPairs, mediumFromPairs, reflectanceFromPairs } from '../spectral/bases';
 import { SpectralInputError } from '../spectral/errors';
 import { BLACKBODY_K, CIE_ILLUMINANT_NAMES, DAYLIGHT_CCT_K, MAX_FILTERS, MAX_PAIRS, MAX_SWATCHES } from '../spectral/limits';
+import type { LibraryKind } from '../spectral/library';
 
 const nm = (what: string) => z.number().min(300, `${what} must be at least 300 nm`).max(1100, `${what} must be at most 1100 nm`);
 const widthNm = (what: string) => z.number().positive(`${what} must be above 0 nm`).max(800, `${what} must be at most 800 nm`);
@@ -174,4 +176,25 @@ export interface SimulateResponse {
   /** the light's white, XYZ with Y = 100 */
   white: [number, number, number];
   swatches: SwatchResultView[];
+}
+
+/** One built-in item as GET /api/library answers it. */
+export interface LibraryItemView {
+  id: string;
+  kind: LibraryKind;
+  name: string;
+  description: string;
+  generic: boolean;
+  note: string;
+  /** the source form (light / filter source above; media: model or cmf) */
+  definition: unknown;
+  /** 81 samples on the grid, 380–780 nm at 5 nm (lights and media peak 1; filters transmittance) */
+  values: number[];
+}
+
+/** Answer of GET /api/library. */
+export interface LibraryView {
+  grid: { startNm: number; endNm: number; stepNm: number };
+  items: LibraryItemView[];
+  upsample: { name: string; source: string; version: number; resolution: number };
 }

@@ -137,3 +137,18 @@ describe('bad input writes nothing', () => {
     expect(await count()).toBe(n);
   });
 });
+
+describe('deleting a key swatch', () => {
+  it('puts the looks keyed on it back on middle grey, so they stay editable', async () => {
+    const owner = await t.agent('camera@demo.grisaille.test');
+    const s = await owner.post(`${base}/swatches`).send(hexSwatch('Key face, temporary', '#c89a80', 'makeup'));
+    const looks = (await owner.get(`${base}/looks`)).body.looks as { id: number }[];
+    const look = (await owner.get(`${base}/looks/${looks[0].id}`)).body.look;
+    const keyed = await owner.patch(`${base}/looks/${look.id}`).send({ tone: { ...look.tone, keySwatchId: s.body.swatch.id, keyZone: 6 } });
+    expect(keyed.status).toBe(200);
+    expect((await owner.delete(`${base}/swatches/${s.body.swatch.id}`)).status).toBe(204);
+    const after = (await owner.get(`${base}/looks/${look.id}`)).body.look;
+    expect(after.tone.keySwatchId).toBeNull();
+    expect((await owner.patch(`${base}/looks/${look.id}`).send({ name: after.name })).status).toBe(200);
+  });
+});

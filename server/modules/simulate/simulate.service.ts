@@ -2,36 +2,15 @@
  * POST /api/simulate and the built-in library, over the spectral engine (shared/spectral).
  * Engine input errors become 400s naming the field path; see docs/api-simulate.md.
  */
-import type { SimulateRequest, SimulateResponse } from '../../../shared/schemas/simulate';
+import type { LibraryView, SimulateRequest, SimulateResponse } from '../../../shared/schemas/simulate';
 import { resolveFilter, resolveLight, resolveMedium, simulate } from '../../../shared/spectral/compute';
 import { SpectralInputError } from '../../../shared/spectral/errors';
-import { LIBRARY_FILTERS, LIBRARY_LIGHTS, LIBRARY_MEDIA, type LibraryKind } from '../../../shared/spectral/library';
+import { LIBRARY_FILTERS, LIBRARY_LIGHTS, LIBRARY_MEDIA } from '../../../shared/spectral/library';
 import { GRID_SHAPE } from '../../../shared/spectral/policy';
 import type { Spectrum } from '../../../shared/spectral/spectrum';
 import { UPSAMPLE_METHOD } from '../../../shared/spectral/upsample-table';
 import { InvalidError } from '../../errors';
 import { getUpsampleTable, getUpsampleTableBytes } from '../../services/upsample-table';
-
-/** One built-in item as GET /api/library answers it. */
-export interface LibraryItemView {
-  id: string;
-  kind: LibraryKind;
-  name: string;
-  description: string;
-  generic: boolean;
-  note: string;
-  /** the source form (light / filter source of shared/schemas/simulate.ts; media: model or cmf) */
-  definition: unknown;
-  /** 81 samples on the grid, 380–780 nm at 5 nm (lights and media peak 1; filters transmittance) */
-  values: number[];
-}
-
-/** Answer of GET /api/library. */
-export interface LibraryView {
-  grid: { startNm: number; endNm: number; stepNm: number };
-  items: LibraryItemView[];
-  upsample: { name: string; source: string; version: number; resolution: number };
-}
 
 const round = (s: Spectrum) => Array.from(s.values, (v) => Number(v.toPrecision(6)));
 

@@ -1,3 +1,4 @@
+import { Look } from '../../db/entities/look.entity';
 import type { DataSource, EntityManager } from 'typeorm';
 import { Swatch } from '../../db/entities/swatch.entity';
 import type { Membership } from '../../db/entities/membership.entity';
@@ -104,6 +105,15 @@ export class SwatchesService {
     await this.ds.transaction(async (t) => {
       const s = await this.entity(m.production.id, id, t);
       assertDepartmentAccess(m, s.department, 'swatches');
+      // a look keyed on this swatch falls back to middle grey, so it stays valid and editable
+      const looks = await t.find(Look, { where: { production: { id: m.production.id } } });
+      for (const l of looks) {
+        const tone = (l.tone ?? {}) as { keySwatchId?: number | null };
+        if (tone.keySwatchId === id) {
+          l.tone = { ...l.tone, keySwatchId: null } as typeof l.tone;
+          await t.save(l);
+        }
+      }
       await t.remove(s);
     });
   }
