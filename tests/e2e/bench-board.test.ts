@@ -3,27 +3,18 @@
  * filter, light) and watch the filter factor follow; add a lip colour by hex as the makeup member and see
  * its zone through each look and on the board; the costume member finds two fabrics that merge.
  */
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, shot as shotAt, signIn, startServer, type RunningApp } from '../helpers/browser';
+import { expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { shot as shotAt, signIn, useAppAndBrowser } from '../helpers/browser';
 
-let app: RunningApp;
-let browser: Browser;
+const env = useAppAndBrowser();
 let pid = 0;
-beforeAll(async () => {
-  app = await startServer();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await app?.stop();
-});
 
 async function page(email: string): Promise<{ p: Page; errors: string[] }> {
-  const p = await browser.newPage({ viewport: { width: 1366, height: 900 } });
+  const p = await env.browser.newPage({ viewport: { width: 1366, height: 900 } });
   const errors: string[] = [];
   p.on('pageerror', (e) => errors.push(e.message));
-  await signIn(p, app.url, email);
+  await signIn(p, env.app.url, email);
   pid = await p.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
   return { p, errors };
 }
@@ -38,7 +29,7 @@ const mainFactor = (p: Page) => p.getByTestId('factor-main').innerText();
 
 it('builds a look from scratch on the bench and the filter factor follows the filter and the light', async () => {
   const { p, errors } = await page('camera@demo.grisaille.test');
-  await p.goto(`${app.url}/p/${pid}/bench/new`);
+  await p.goto(`${env.app.url}/p/${pid}/bench/new`);
   await p.getByLabel('Look name').fill('Test: built from scratch');
   await p.getByLabel('Medium', { exact: true }).selectOption({ label: 'Orthochromatic emulsion' });
   await p.getByLabel('Medium', { exact: true }).selectOption({ label: 'Panchromatic negative' });
@@ -63,7 +54,7 @@ it('builds a look from scratch on the bench and the filter factor follows the fi
   await p.waitForURL(/\/bench\/\d+$/);
   await p.getByText('Test: built from scratch').first().waitFor();
   await shot(p, 'bench-02-saved-look');
-  await p.goto(`${app.url}/p/${pid}/looks`);
+  await p.goto(`${env.app.url}/p/${pid}/looks`);
   await p.getByRole('heading', { name: 'Test: built from scratch' }).waitFor();
   await p.getByRole('checkbox', { name: 'Compare' }).nth(0).check();
   await p.getByRole('checkbox', { name: 'Compare' }).nth(1).check();
@@ -76,7 +67,7 @@ it('builds a look from scratch on the bench and the filter factor follows the fi
 
 it('the makeup member adds a lip colour by hex, sees its zone through each look, and finds it on the board', async () => {
   const { p, errors } = await page('makeup@demo.grisaille.test');
-  await p.goto(`${app.url}/p/${pid}/swatches`);
+  await p.goto(`${env.app.url}/p/${pid}/swatches`);
   const form = p.getByRole('form', { name: 'Add a swatch' });
   await form.getByLabel('Name').fill('Lip colour, test red');
   await form.getByLabel('sRGB hex').fill('#9e2b35');
@@ -110,7 +101,7 @@ it('the makeup member adds a lip colour by hex, sees its zone through each look,
 
 it('the costume member spots two fabrics that merge', async () => {
   const { p, errors } = await page('costume@demo.grisaille.test');
-  await p.goto(`${app.url}/p/${pid}/boards`);
+  await p.goto(`${env.app.url}/p/${pid}/boards`);
   await p.getByRole('link', { name: 'Workshop wardrobe' }).click();
   await p.getByRole('heading', { name: 'Workshop wardrobe' }).waitFor();
   await p.getByTestId('merge').first().waitFor();
@@ -124,7 +115,7 @@ it('the costume member spots two fabrics that merge', async () => {
 
 it('the gaffer uploads a filter table to the library: a bad line is named, a good file is previewed and saved', async () => {
   const { p, errors } = await page('gaffer@demo.grisaille.test');
-  await p.goto(`${app.url}/p/${pid}/library`);
+  await p.goto(`${env.app.url}/p/${pid}/library`);
   await p.getByRole('button', { name: /Cyan short-pass 530 nm/ }).click();
   await p.getByText(/generic model of a typical shape/).first().waitFor();
   const form = p.getByRole('form', { name: 'Upload a curve' });

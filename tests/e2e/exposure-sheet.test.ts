@@ -1,9 +1,9 @@
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, shot, signIn, SHOTS_DIR, startServer, type RunningApp } from '../helpers/browser';
+import { expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { shot, signIn, SHOTS_DIR, useAppAndBrowser } from '../helpers/browser';
 
 /**
  * The camera department's path through exposure: the bench's EI chain and light level follow a filter
@@ -15,16 +15,7 @@ import { launchBrowser, shot, signIn, SHOTS_DIR, startServer, type RunningApp } 
 /** Fact of the trade (common practice): a box speed of 250 for the demo panchromatic negative; no filter, no rating → EI 250. */
 const BOX_SPEED_EI = '250';
 
-let app: RunningApp;
-let browser: Browser;
-beforeAll(async () => {
-  app = await startServer();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await app?.stop();
-});
+const env = useAppAndBrowser();
 
 const num = (s: string | null) => Number((s ?? '').replace(/[^\d.]/g, ''));
 async function readout(page: Page) {
@@ -41,23 +32,23 @@ async function eiChangesFrom(page: Page, before: number) {
 }
 
 it('the bench shows the EI chain and light level, and both follow the filter, the light and the T-stop', async () => {
-  const page = await browser.newPage({ viewport: { width: 1366, height: 900 } });
+  const page = await env.browser.newPage({ viewport: { width: 1366, height: 900 } });
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
-  await signIn(page, app.url, 'camera@demo.grisaille.test');
+  await signIn(page, env.app.url, 'camera@demo.grisaille.test');
   const pid = await page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
   const looks: { id: number; name: string; filters: unknown[] }[] = (await page.evaluate((p) => fetch(`/api/productions/${p}/looks`).then((r) => r.json()), pid)).looks;
   const plain = looks.find((l) => l.name === 'Panchromatic, no filter')!;
   const cyan = looks.find((l) => l.name === 'Panchromatic + red-absorbing cyan')!;
 
   // a look without a filter: the effective EI is the box speed and the look costs no light
-  await page.goto(`${app.url}/p/${pid}/bench/${plain.id}`);
+  await page.goto(`${env.app.url}/p/${pid}/bench/${plain.id}`);
   await page.getByTestId('exposure-panel').waitFor();
   expect(await page.getByTestId('effective-ei').textContent()).toBe(BOX_SPEED_EI);
   expect((await readout(page)).cost).toContain('needs the same light as the unfiltered one');
 
   // the look with the cyan filter under tungsten
-  await page.goto(`${app.url}/p/${pid}/bench/${cyan.id}`);
+  await page.goto(`${env.app.url}/p/${pid}/bench/${cyan.id}`);
   await page.getByTestId('exposure-panel').waitFor();
   await page.getByTestId('ei-step-filter').getByText(/Cyan short-pass/).waitFor();
   const cyanTungsten = await readout(page);
@@ -102,14 +93,14 @@ it('the bench shows the EI chain and light level, and both follow the filter, th
 });
 
 it('the exposure sheet opens from the bench, prints, and downloads as a PDF that reads', async () => {
-  const page = await browser.newPage({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+  const page = await env.browser.newPage({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
-  await signIn(page, app.url, 'lab@demo.grisaille.test');
+  await signIn(page, env.app.url, 'lab@demo.grisaille.test');
   const pid = await page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
   const looks: { id: number; name: string }[] = (await page.evaluate((p) => fetch(`/api/productions/${p}/looks`).then((r) => r.json()), pid)).looks;
   const cyan = looks.find((l) => l.name === 'Panchromatic + red-absorbing cyan')!;
-  await page.goto(`${app.url}/p/${pid}/bench/${cyan.id}`);
+  await page.goto(`${env.app.url}/p/${pid}/bench/${cyan.id}`);
   await page.getByRole('link', { name: 'Exposure sheet' }).click();
   await page.waitForURL(new RegExp(`/p/${pid}/looks/${cyan.id}/sheet$`));
   await page.getByRole('heading', { name: cyan.name }).waitFor();

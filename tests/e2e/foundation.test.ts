@@ -1,26 +1,16 @@
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, shot, signIn, startServer, type RunningApp } from '../helpers/browser';
+import { expect, it } from 'vitest';
+import { shot, signIn, useAppAndBrowser } from '../helpers/browser';
 
-let app: RunningApp;
-let browser: Browser;
-beforeAll(async () => {
-  app = await startServer();
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await app?.stop();
-});
+const env = useAppAndBrowser();
 
 it('the cinematographer signs in, opens the demo production and its team, and signs out', async () => {
-  const page = await browser.newPage({ viewport: { width: 1366, height: 850 } });
+  const page = await env.browser.newPage({ viewport: { width: 1366, height: 850 } });
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
-  await page.goto(`${app.url}/`);
+  await page.goto(`${env.app.url}/`);
   await page.waitForURL(/\/sign-in/);
   await shot(page, 'foundation-01-sign-in');
-  await signIn(page, app.url, 'camera@demo.grisaille.test');
+  await signIn(page, env.app.url, 'camera@demo.grisaille.test');
   await page.getByRole('heading', { name: 'Productions' }).waitFor();
   await shot(page, 'foundation-02-productions');
   await page.getByRole('link', { name: /The Clockmaker's Winter/ }).click();
@@ -39,10 +29,10 @@ it('the cinematographer signs in, opens the demo production and its team, and si
 });
 
 it('a viewer sees the team but not the invitation form', async () => {
-  const page = await browser.newPage({ viewport: { width: 1366, height: 850 } });
-  await signIn(page, app.url, 'producer@demo.grisaille.test');
+  const page = await env.browser.newPage({ viewport: { width: 1366, height: 850 } });
+  await signIn(page, env.app.url, 'producer@demo.grisaille.test');
   const pid = await page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
-  await page.goto(`${app.url}/p/${pid}/team`);
+  await page.goto(`${env.app.url}/p/${pid}/team`);
   await page.getByRole('cell', { name: 'camera@demo.grisaille.test' }).waitFor();
   expect(await page.getByRole('button', { name: 'Send invitation' }).count()).toBe(0);
   await shot(page, 'foundation-05-team-as-viewer');

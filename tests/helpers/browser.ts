@@ -4,6 +4,7 @@ import os from 'node:os';
 import path from 'node:path';
 import net from 'node:net';
 import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 
 /** Where browser tests save their screenshots (ignored by git). */
 export const SHOTS_DIR = path.resolve('test-output/screenshots');
@@ -86,4 +87,21 @@ export async function signIn(page: Page, url: string, email: string, password = 
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+}
+
+/**
+ * Registers beforeAll/afterAll that start the built app and Chromium for a test file, and stop them.
+ * Read `env.app` and `env.browser` inside the tests.
+ */
+export function useAppAndBrowser(): { app: RunningApp; browser: Browser } {
+  const env = {} as { app: RunningApp; browser: Browser };
+  beforeAll(async () => {
+    env.app = await startServer();
+    env.browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await env.browser?.close();
+    await env.app?.stop();
+  });
+  return env;
 }
