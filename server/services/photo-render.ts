@@ -1,25 +1,45 @@
 /**
  * Full-resolution photo renders through a look: sharp decodes (orientation applied, an embedded ICC
  * profile converted to sRGB, transparency flattened on white) to a raw Uint8 or Uint16 buffer; one
- * pass applies the look's table (shared/photo/apply-lut.ts) in chunks; sharp encodes the grey as a
- * 16-bit PNG or a JPEG. The table is prepared while sharp decodes (sharp works on its own threads),
- * so its cost hides behind the decode.
+ * pass applies the look's table; sharp encodes the grey as a 16-bit PNG or a JPEG.
+ * The table depends on the look only, so it is built while sharp decodes (on sharp's own threads):
+ * for 8-bit photos the full table of every colour (shared/photo/full-lut.ts), a pixel then costing one
+ * read; for 16-bit photos the trilinear plan (shared/photo/apply-lut.ts). On large images a worker
+ * thread takes half of the table and the bottom half of the pass (photo-pass-pool.ts).
  */
 import sharp, { type JpegOptions, type PngOptions } from 'sharp';
-import { applyLut16, applyLut8, type LutPlan16, type LutPlan8, type OutputBits } from '../../shared/photo/apply-lut';
+import { applyLut16, planLut16, type LutPlan16, type OutputBits } from '../../shared/photo/apply-lut';
+import { applyFullLut, fillFullLut, fullLutFill } from '../../shared/photo/full-lut';
+import { buildPhotoLut, type PhotoToneModel } from '../../shared/photo/look-photo-model';
+import { RENDER_LUT_SIZE } from '../../shared/photo/exposure-lut';
 import type { RenderFormat } from '../../shared/schemas/photo';
 import { MAX_PHOTO_PIXELS } from '../../shared/schemas/photo';
 import { srgbReader } from '../modules/photos/photo-ingest';
+import { PARALLEL_MIN_PIXELS, passPool } from './photo-pass-pool';
 
 /** JPEG settings of renders (the benchmark's greyscale baseline uses the same). */
 export const RENDER_JPEG: JpegOptions = { quality: 90 };
 /** PNG settings of renders (zlib level 6, sharp's default, written explicitly). */
 export const RENDER_PNG: PngOptions = { compressionLevel: 6 };
-/** Pixels per chunk of the table pass (about 5 ms each); the event loop runs between chunks. */
-export const RENDER_CHUNK_PIXELS = 1 << 20;
+/** Pixels per chunk of the pass; the event loop runs between chunks. */
+export const RENDER_CHUNK_PIXELS = 1 << 21;
+
+/** A look's table as the renderer applies it. */
+export type RenderTable = { kind: 'full8'; codes: Uint8Array | Uint16Array } | { kind: 'plan16'; plan: LutPlan16 };
+
+/** Builds the render table of a look for an input and output depth (half of a full table on the worker). */
+export async function buildRenderTable(model: PhotoToneModel, inputBits: 8 | 16, outputBits: OutputBits): Promise<RenderTable> {
+  const lut = buildPhotoLut(model, RENDER_LUT_SIZE);
+  if (inputBits === 16) return { kind: 'plan16', plan: planLut16(lut, model.tone, outputBits) };
+  const codes = passPool.alloc(1 << 24, outputBits);
+  const other = passPool.fill(fullLutFill(codes, lut, model.tone, outputBits, 128, 256));
+  fillFullLut(fullLutFill(codes, lut, model.tone, outputBits, 0, 128));
+  if (!(await other)) fillFullLut(fullLutFill(codes, lut, model.tone, outputBits, 128, 256));
+  return { kind: 'full8', codes };
+}
 
 export interface RenderProgress {
-  stage: 'decoding' | 'rendering' | 'encoding';
+  stage: 'decoding' | 'table' | 'rendering' | 'encoding';
   /** 0..1 over the whole render */
   progress: number;
 }
@@ -32,8 +52,8 @@ export interface RenderRequest {
   /** whether the original carries an ICC profile */
   hasProfile: boolean;
   format: RenderFormat;
-  /** prepares the look's table for this input and output depth; called while the image decodes */
-  plan: (inputBits: 8 | 16, outputBits: OutputBits) => LutPlan8 | LutPlan16;
+  /** the look's table for this input and output depth (buildRenderTable, or a cached one); asked for while the image decodes */
+  table: (inputBits: 8 | 16, outputBits: OutputBits) => Promise<RenderTable> | RenderTable;
   maxPixels?: number;
   onProgress?: (p: RenderProgress) => void;
 }
@@ -44,7 +64,7 @@ export interface RenderResult {
   height: number;
   /** image/png or image/jpeg */
   mime: string;
-  /** time spent, ms, by step */
+  /** ms by step; decode and table overlap */
   ms: { decode: number; table: number; pass: number; encode: number; total: number };
 }
 
@@ -72,20 +92,14 @@ export async function renderPhoto(req: RenderRequest): Promise<RenderResult> {
   const report = req.onProgress ?? (() => {});
   const outBits: OutputBits = req.format === 'jpeg' ? 8 : 16;
   report({ stage: 'decoding', progress: 0 });
-  const decoding = decodeSrgb(req.input, req.bitDepth, req.hasProfile, req.maxPixels);
-  // prepared on this thread while libvips decodes on its own
-  const tt = performance.now();
-  let plan: LutPlan8 | LutPlan16;
-  try {
-    plan = req.plan(req.bitDepth, outBits);
-  } catch (e) {
-    decoding.catch(() => {});
-    throw e;
-  }
-  const tableMs = performance.now() - tt;
-  const { data, info } = await decoding;
-  const tDecoded = performance.now();
+  const decoding = decodeSrgb(req.input, req.bitDepth, req.hasProfile, req.maxPixels).then((d) => ({ ...d, at: performance.now() }));
+  decoding.catch(() => {});
+  const table = await req.table(req.bitDepth, outBits);
+  const tableMs = performance.now() - t0;
+  report({ stage: 'decoding', progress: 0.25 });
+  const { data, info, at: decodedAt } = await decoding;
   if (info.channels !== 3) throw new Error(`decoded to ${info.channels} channels, expected 3`);
+  const tPass = performance.now();
   const n = info.width * info.height;
   const src: Uint8Array | Uint16Array =
     req.bitDepth === 16
@@ -93,15 +107,23 @@ export async function renderPhoto(req: RenderRequest): Promise<RenderResult> {
         ? new Uint16Array(data.buffer, data.byteOffset, data.length / 2)
         : new Uint16Array(Uint8Array.from(data).buffer)
       : data;
-  const grey = outBits === 8 ? new Uint8Array(n) : new Uint16Array(n);
-  for (let from = 0; from < n; from += RENDER_CHUNK_PIXELS) {
-    const to = Math.min(n, from + RENDER_CHUNK_PIXELS);
-    if (req.bitDepth === 16) applyLut16(plan as LutPlan16, src, 3, grey, from, to);
-    else applyLut8(plan as LutPlan8, src, 3, grey, from, to);
-    report({ stage: 'rendering', progress: 0.3 + 0.3 * (to / n) });
-    if (to < n) await yieldToLoop();
-  }
-  const tPass = performance.now();
+  if ((req.bitDepth === 16) !== (table.kind === 'plan16')) throw new Error('the table does not fit the input depth');
+  const parallel = n >= PARALLEL_MIN_PIXELS;
+  const grey = parallel ? passPool.alloc(n, outBits) : outBits === 8 ? new Uint8Array(n) : new Uint16Array(n);
+  const split = parallel ? Math.floor(n / 2) : n;
+  const other = parallel ? passPool.pass(table.kind === 'full8' ? { codes: table.codes } : { plan: table.plan }, req.bitDepth, src, grey, split, n) : Promise.resolve(true);
+  const pass = async (start: number, end: number, share: number) => {
+    for (let from = start; from < end; from += RENDER_CHUNK_PIXELS) {
+      const to = Math.min(end, from + RENDER_CHUNK_PIXELS);
+      if (table.kind === 'full8') applyFullLut(table.codes, src, 3, grey, from, to);
+      else applyLut16(table.plan, src, 3, grey, from, to);
+      report({ stage: 'rendering', progress: 0.3 + 0.3 * share * ((to - start) / (end - start)) });
+      if (to < end) await yieldToLoop();
+    }
+  };
+  await pass(0, split, split / n);
+  if (!(await other)) await pass(split, n, 1);
+  const tEncode = performance.now();
   report({ stage: 'encoding', progress: 0.6 });
   const out = await encodeGrey(grey, info.width, info.height, req.format);
   const t1 = performance.now();
@@ -110,6 +132,6 @@ export async function renderPhoto(req: RenderRequest): Promise<RenderResult> {
     width: info.width,
     height: info.height,
     mime: req.format === 'jpeg' ? 'image/jpeg' : 'image/png',
-    ms: { decode: tDecoded - t0, table: tableMs, pass: tPass - tDecoded, encode: t1 - tPass, total: t1 - t0 },
+    ms: { decode: decodedAt - t0, table: tableMs, pass: tEncode - tPass, encode: t1 - tEncode, total: t1 - t0 },
   };
 }

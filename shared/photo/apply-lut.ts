@@ -7,6 +7,7 @@
  * all 256 × 256 code pairs at every blue node (a "partial" table, 65,536 × size entries); a pixel then
  * costs one interpolation along blue — the same trilinear result, at a fraction of the work.
  * 16-bit input: full trilinear per pixel, with the axis positions of all 65,536 codes precomputed.
+ * (For whole photos at 8 bits the server goes one step further: full-lut.ts.)
  * Stops are carried in fixed point (1/STOPS_Q stop) and mapped to the output code by one table.
  * Output: grey codes, 0..255 (8-bit) or 0..65535 (16-bit), one channel.
  */
@@ -15,15 +16,17 @@ import { greyOfStops, TONE_TABLE_STOPS, type ToneCurveTable } from './tone-curve
 
 /** Fixed-point steps per stop inside the renderer (a tone 1/2048 stop apart moves the grey < 0.02/255). */
 export const STOPS_Q = 2048;
-const MIN_STOPS = TONE_TABLE_STOPS[0];
-const MAX_Q = (TONE_TABLE_STOPS[1] - TONE_TABLE_STOPS[0]) * STOPS_Q;
+/** Stops of fixed-point 0. */
+export const MIN_STOPS = TONE_TABLE_STOPS[0];
+/** Largest fixed-point value (the top of the tone table). */
+export const MAX_Q = (TONE_TABLE_STOPS[1] - TONE_TABLE_STOPS[0]) * STOPS_Q;
 
 export type OutputBits = 8 | 16;
 /** Grey codes out, one per pixel. */
 export type GreyBuffer = Uint8Array | Uint8ClampedArray | Uint16Array;
 
-/** Fixed-point stops → output code (0..255 or 0..65535). */
-function outputTable(tone: ToneCurveTable, bits: OutputBits): Uint8Array | Uint16Array {
+/** Fixed-point stops → output code (0..255 or 0..65535), MAX_Q + 1 entries. */
+export function outputCodes(tone: ToneCurveTable, bits: OutputBits): Uint8Array | Uint16Array {
   const n = MAX_Q + 1;
   const top = bits === 8 ? 255 : 65535;
   const out = bits === 8 ? new Uint8Array(n) : new Uint16Array(n);
@@ -82,20 +85,34 @@ export function planLut8(lut: ExposureLut, tone: ToneCurveTable, bits: OutputBit
   }
   const blue = new Int32Array(256);
   for (let c = 0; c < 256; c++) blue[c] = index[c] | (Math.round(frac[c] * 256) << 8);
-  return { size, bits, partial, blue, out: outputTable(tone, bits) };
+  return { size, bits, partial, blue, out: outputCodes(tone, bits) };
 }
 
 /**
  * Renders pixels [from, to) of 8-bit interleaved RGB(A) `src` (`channels` 3 or 4; alpha ignored) into
- * `dst` (one grey code per pixel, at the same pixel index).
+ * `dst` (one grey code per pixel, at the same pixel index). Refers to nothing outside its arguments.
  */
 export function applyLut8(plan: LutPlan8, src: ArrayLike<number>, channels: number, dst: GreyBuffer, from: number, to: number): void {
   const { partial, blue, out, size } = plan;
-  for (let j = from, i = from * channels; j < to; j++, i += channels) {
+  let j = from;
+  let i = from * channels;
+  // two pixels a step: their loads overlap (about a tenth faster, measured)
+  for (; j + 1 < to; j += 2, i += 2 * channels) {
+    const i2 = i + channels;
+    const w = blue[src[i + 2]];
+    const w2 = blue[src[i2 + 2]];
+    const o = ((src[i] << 8) | src[i + 1]) * size + (w & 255);
+    const o2 = ((src[i2] << 8) | src[i2 + 1]) * size + (w2 & 255);
+    const p0 = partial[o];
+    const q0 = partial[o2];
+    dst[j] = out[p0 + (((partial[o + 1] - p0) * (w >> 8) + 128) >> 8)];
+    dst[j + 1] = out[q0 + (((partial[o2 + 1] - q0) * (w2 >> 8) + 128) >> 8)];
+  }
+  for (; j < to; j++, i += channels) {
     const w = blue[src[i + 2]];
     const o = ((src[i] << 8) | src[i + 1]) * size + (w & 255);
     const p0 = partial[o];
-    dst[j] = out[p0 + ((((partial[o + 1] - p0) * (w >> 8)) + 128) >> 8)];
+    dst[j] = out[p0 + (((partial[o + 1] - p0) * (w >> 8) + 128) >> 8)];
   }
 }
 
@@ -109,6 +126,10 @@ export interface LutPlan16 {
   /** fraction towards the next node of each 16-bit code */
   readonly frac: Float32Array;
   readonly out: Uint8Array | Uint16Array;
+  /** the fixed point, carried so applyLut16 refers to nothing outside its arguments (it also runs in a worker) */
+  readonly minStops: number;
+  readonly q: number;
+  readonly maxQ: number;
 }
 
 /** Prepares a table for 16-bit sRGB pixels, with `bits` of output. */
@@ -122,12 +143,12 @@ export function planLut16(lut: ExposureLut, tone: ToneCurveTable, bits: OutputBi
     index[c] = i;
     frac[c] = p - i;
   }
-  return { size: lut.size, bits, stops: lut.stops, index, frac, out: outputTable(tone, bits) };
+  return { size: lut.size, bits, stops: lut.stops, index, frac, out: outputCodes(tone, bits), minStops: MIN_STOPS, q: STOPS_Q, maxQ: MAX_Q };
 }
 
-/** Renders pixels [from, to) of 16-bit interleaved RGB(A) `src` into `dst` (one grey code per pixel). */
+/** Renders pixels [from, to) of 16-bit interleaved RGB(A) `src` into `dst` (one grey code per pixel); self-contained too. */
 export function applyLut16(plan: LutPlan16, src: ArrayLike<number>, channels: number, dst: GreyBuffer, from: number, to: number): void {
-  const { stops: v, index, frac, out, size } = plan;
+  const { stops: v, index, frac, out, size, minStops, q: Q, maxQ } = plan;
   const sy = size;
   const sz = size * size;
   for (let j = from, i = from * channels; j < to; j++, i += channels) {
@@ -144,7 +165,7 @@ export function applyLut16(plan: LutPlan16, src: ArrayLike<number>, channels: nu
     const c11 = v[p + sz + sy] + fx * (v[p + sz + sy + 1] - v[p + sz + sy]);
     const c0 = c00 + fy * (c10 - c00);
     const c1 = c01 + fy * (c11 - c01);
-    const q = ((c0 + fz * (c1 - c0) - MIN_STOPS) * STOPS_Q + 0.5) | 0;
-    dst[j] = out[q < 0 ? 0 : q > MAX_Q ? MAX_Q : q];
+    const q = ((c0 + fz * (c1 - c0) - minStops) * Q + 0.5) | 0;
+    dst[j] = out[q < 0 ? 0 : q > maxQ ? maxQ : q];
   }
 }

@@ -33,11 +33,6 @@ export function photoToneModel(stack: Stack, pipeline: TonePipeline, upsample: U
   return { upsample, nodeM, tone: toneCurveTable(pipeline) };
 }
 
-/** The same model with another tone pipeline (tone settings changed, spectra not): no spectral work. */
-export function withTone(model: PhotoToneModel, pipeline: TonePipeline): PhotoToneModel {
-  return { ...model, tone: toneCurveTable(pipeline) };
-}
-
 const cell: TableCell = { node: 0, fx: 0, fy: 0, fz: 0 };
 
 /**

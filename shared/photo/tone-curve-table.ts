@@ -9,8 +9,12 @@ import { FLOOR_STOPS } from '../spectral/limits';
 
 /** The stops range tabulated (before key placement): the engine's floor to well past paper white. */
 export const TONE_TABLE_STOPS: readonly [number, number] = [FLOOR_STOPS, 4];
-/** Samples of the tabulated tone curve: 1/256 stop apart. */
-export const TONE_TABLE_SAMPLES = (TONE_TABLE_STOPS[1] - TONE_TABLE_STOPS[0]) * 256 + 1;
+/**
+ * Samples of the tabulated tone curve: 1/64 stop apart. The curves bend by at most about 0.3 (encoded
+ * grey) per stop², so linear interpolation between samples is within 0.3 · (1/64)² / 8 ≈ 1e-5 of the
+ * pipeline (0.002/255).
+ */
+export const TONE_TABLE_SAMPLES = (TONE_TABLE_STOPS[1] - TONE_TABLE_STOPS[0]) * 64 + 1;
 
 /** A look's tone curve along stops. */
 export interface ToneCurveTable {

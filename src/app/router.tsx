@@ -32,6 +32,7 @@ const productionPages: RouteObject[] = [
   { path: 'swatches', ...page(() => import('./routes/swatches')) },
   { path: 'boards', ...page(() => import('./routes/boards')) },
   { path: 'boards/:boardId', ...page(() => import('./routes/board')) },
+  { path: 'photos', ...page(() => import('./routes/photos')) },
   // PRODUCTION ROUTES END
 ];
 

@@ -186,34 +186,39 @@ export async function demoSceneJpeg(scene: DemoScene, width = scene.width, heigh
 }
 
 /**
- * Seeds the demo photos: files first (each through the same ingest as an upload), then the rows in
- * the seed's transaction `t`.
+ * Seeds the demo photos: files first (each through the same ingest as an upload, the scenes in
+ * parallel), then the rows in the seed's transaction `t`.
  */
 export async function seedDemoPhotos(t: EntityManager, production: Production, members: Record<string, Membership>, dataDir: string): Promise<void> {
   const storage = new PhotoStorage(dataDir);
   const uploader = members['camera@demo.grisaille.test']?.user ?? null;
-  for (const scene of DEMO_SCENES) {
-    const incoming = path.join(storage.incomingDir, `${PhotoStorage.newKey()}.upload`);
-    const staging = storage.stagingDir();
-    const key = PhotoStorage.newKey();
-    try {
-      fs.writeFileSync(incoming, await demoSceneJpeg(scene));
-      const info = await ingestPhoto(incoming, staging, { maxPixels: MAX_PHOTO_PIXELS });
-      storage.commit(staging, key);
-      await t.save(Photo, t.create(Photo, {
-        production,
-        uploadedBy: uploader,
-        department: scene.department,
-        name: scene.name,
-        notes: scene.notes,
-        originalName: `${scene.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}.jpg`,
-        storageKey: key,
-        isDemo: true,
-        ...info,
-      }));
-    } finally {
-      removeQuietly(incoming);
-      removeQuietly(staging);
-    }
+  const made = await Promise.all(
+    DEMO_SCENES.map(async (scene) => {
+      const incoming = path.join(storage.incomingDir, `${PhotoStorage.newKey()}.upload`);
+      const staging = storage.stagingDir();
+      const key = PhotoStorage.newKey();
+      try {
+        fs.writeFileSync(incoming, await demoSceneJpeg(scene));
+        const info = await ingestPhoto(incoming, staging, { maxPixels: MAX_PHOTO_PIXELS });
+        storage.commit(staging, key);
+        return { scene, key, info };
+      } finally {
+        removeQuietly(incoming);
+        removeQuietly(staging);
+      }
+    }),
+  );
+  for (const { scene, key, info } of made) {
+    await t.save(Photo, t.create(Photo, {
+      production,
+      uploadedBy: uploader,
+      department: scene.department,
+      name: scene.name,
+      notes: scene.notes,
+      originalName: `${scene.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}.jpg`,
+      storageKey: key,
+      isDemo: true,
+      ...info,
+    }));
   }
 }

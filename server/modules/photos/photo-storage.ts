@@ -21,6 +21,24 @@ export class PhotoStorage {
     fs.mkdirSync(this.photosRoot, { recursive: true });
     fs.mkdirSync(this.incomingDir, { recursive: true });
     fs.mkdirSync(this.rendersRoot, { recursive: true });
+    this.sweep();
+  }
+
+  /** Removes what an interrupted upload left behind (staging directories, incoming files) over an hour old. */
+  private sweep() {
+    const old = Date.now() - 3600_000;
+    const clear = (dir: string, match: (f: string) => boolean) => {
+      for (const f of fs.readdirSync(dir)) {
+        const p = path.join(dir, f);
+        try {
+          if (match(f) && fs.statSync(p).mtimeMs < old) fs.rmSync(p, { recursive: true, force: true });
+        } catch {
+          /* gone meanwhile */
+        }
+      }
+    };
+    clear(this.photosRoot, (f) => f.startsWith('.staging-'));
+    clear(this.incomingDir, () => true);
   }
 
   static newKey(): string {

@@ -10,6 +10,7 @@ import { ingestPhoto } from './photo-ingest';
 import { PhotoStorage, removeQuietly } from './photo-storage';
 import { RenderJobs } from './render-jobs';
 import { getPhotoTables } from './photo-tables';
+import { getUpsampleTable } from '../../services/upsample-table';
 import { photoLookView, resolvePhotoLook } from './photo-looks';
 
 /** Limits an instance enforces (tests lower them). */
@@ -162,8 +163,7 @@ export class PhotosService {
 
   /** A look resolved to spectra for the browser's live preview. */
   async photoLook(productionId: number, choice: { lookId?: number; look?: LookDefinition }): Promise<PhotoLookView> {
-    const { upsample } = await getPhotoTables(this.dataDir);
-    return photoLookView(await resolvePhotoLook(this.ds.manager, productionId, choice, upsample));
+    return photoLookView(await resolvePhotoLook(this.ds.manager, productionId, choice, await getUpsampleTable(this.dataDir)));
   }
 
   private withUrl(productionId: number, photoId: number, s: RenderStatus): RenderStatus {
@@ -173,8 +173,7 @@ export class PhotosService {
   /** Starts (or finds in the cache) a full-resolution render. */
   async startRender(productionId: number, photoId: number, req: { lookId?: number; look?: LookDefinition; format: RenderFormat }): Promise<RenderStatus> {
     const p = await this.entity(productionId, photoId);
-    const { upsample } = await getPhotoTables(this.dataDir);
-    const look = await resolvePhotoLook(this.ds.manager, productionId, req, upsample);
+    const look = await resolvePhotoLook(this.ds.manager, productionId, req, await getUpsampleTable(this.dataDir));
     return this.withUrl(productionId, photoId, this.renders.request(p, look.spectra, look.contentHash, req.format));
   }
 

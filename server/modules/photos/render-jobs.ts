@@ -10,20 +10,20 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Photo } from '../../db/entities/photo.entity';
 import { photoLook, type PhotoLookSpectra } from '../../../shared/photo/compose-look';
-import { buildPhotoLut } from '../../../shared/photo/look-photo-model';
-import { RENDER_LUT_SIZE } from '../../../shared/photo/exposure-lut';
-import { planLut16, planLut8, type LutPlan16, type LutPlan8 } from '../../../shared/photo/apply-lut';
 import type { RenderFormat, RenderStatus } from '../../../shared/schemas/photo';
-import { renderPhoto } from '../../services/photo-render';
+import { buildRenderTable, renderPhoto, type RenderTable } from '../../services/photo-render';
 import type { PhotoTables } from './photo-tables';
 import { PhotoStorage } from './photo-storage';
+import { AppError } from '../../errors';
 
 /** Bump when the renderer's output changes, so old cached renders are not served. */
 export const RENDER_VERSION = 1;
-/** Plans kept in memory (about 9 MB each), most recent first. */
-const PLAN_CACHE = 3;
+/** Look tables kept in memory (16 MB each at 8-bit output, 32 MB at 16-bit), most recent first. */
+const TABLE_CACHE = 3;
 /** Finished renders kept per photo on disk; the oldest beyond this are removed. */
 const RENDERS_KEPT_PER_PHOTO = 16;
+/** Renders allowed to wait; beyond, a request is refused (429) rather than queued. */
+export const MAX_QUEUED_RENDERS = 12;
 /** How long a finished or failed job's status stays in memory, ms (the file outlives it). */
 const STATUS_TTL_MS = 30 * 60 * 1000;
 
@@ -46,7 +46,7 @@ export class RenderJobs {
   private jobs = new Map<string, Job>();
   private queue: string[] = [];
   private running = false;
-  private plans: { key: string; plan: LutPlan8 | LutPlan16 }[] = [];
+  private lookTables: { key: string; table: Promise<RenderTable> }[] = [];
 
   constructor(
     private storage: PhotoStorage,
@@ -69,6 +69,9 @@ export class RenderJobs {
     if (existing && existing.status.status !== 'failed') return { ...existing.status };
     const file = this.file(photo.storageKey, key, format);
     if (fs.existsSync(file)) return this.doneStatus(key, format, file, true);
+    if (this.queue.length >= MAX_QUEUED_RENDERS) {
+      throw new AppError(429, 'busy', `The renderer has ${this.queue.length} renders waiting; try again in a minute.`);
+    }
     const job: Job = {
       status: { key, status: 'queued', progress: 0, stage: 'queued', format, cached: false, url: null, bytes: null, error: null },
       photo,
@@ -125,15 +128,15 @@ export class RenderJobs {
     }
   }
 
-  private plan(job: Job, inputBits: 8 | 16, outputBits: 8 | 16, tables: PhotoTables): LutPlan8 | LutPlan16 {
+  /** The look's render table for these depths, from the cache or built (while the photo decodes). */
+  private table(job: Job, inputBits: 8 | 16, outputBits: 8 | 16, tables: PhotoTables): Promise<RenderTable> {
     const k = `${job.contentHash}|${inputBits}|${outputBits}`;
-    const hit = this.plans.find((p) => p.key === k);
-    if (hit) return hit.plan;
-    const look = photoLook(job.spectra, tables.upsample, tables.reflectances);
-    const lut = buildPhotoLut(look.model, RENDER_LUT_SIZE);
-    const plan = inputBits === 8 ? planLut8(lut, look.model.tone, outputBits) : planLut16(lut, look.model.tone, outputBits);
-    this.plans = [{ key: k, plan }, ...this.plans.filter((p) => p.key !== k)].slice(0, PLAN_CACHE);
-    return plan;
+    const hit = this.lookTables.find((p) => p.key === k);
+    if (hit) return hit.table;
+    const table = buildRenderTable(photoLook(job.spectra, tables.upsample, tables.reflectances).model, inputBits, outputBits);
+    table.catch(() => (this.lookTables = this.lookTables.filter((p) => p.key !== k)));
+    this.lookTables = [{ key: k, table }, ...this.lookTables.filter((p) => p.key !== k)].slice(0, TABLE_CACHE);
+    return table;
   }
 
   private async run(job: Job): Promise<void> {
@@ -149,7 +152,7 @@ export class RenderJobs {
         bitDepth: bitDepth === 16 ? 16 : 8,
         hasProfile: job.photo.iccProfile !== null,
         format: s.format,
-        plan: (ib, ob) => this.plan(job, ib, ob, tables),
+        table: (ib, ob) => this.table(job, ib, ob, tables),
         onProgress: (p) => {
           s.stage = p.stage;
           s.progress = p.progress;

@@ -13,6 +13,7 @@ const STARTS: { title: string; text: string; to: string }[] = [
   { title: 'Boards', text: "Each department's swatches as grey: zones, shifts, and the colours that merge.", to: 'boards' },
   { title: 'Swatches', text: 'Add a lip colour, a fabric or a paint by colour or measured file, and see its zone through every look.', to: 'swatches' },
   { title: 'Library', text: 'Built-in lights, filters and media, and your own curves from files, forms and gels.', to: 'library' },
+  { title: 'Photos', text: 'Reference photos through the looks: live preview while you retune, compare, wipe, zone map, sampler, full-resolution renders.', to: 'photos' },
   // OVERVIEW LINKS END
   { title: 'Team', text: 'Members, roles, departments and invitations.', to: 'team' },
 ];

@@ -16,6 +16,7 @@ const PRODUCTION_NAV: { to: string; label: string; end?: boolean }[] = [
   { to: 'boards', label: 'Boards' },
   { to: 'swatches', label: 'Swatches' },
   { to: 'library', label: 'Library' },
+  { to: 'photos', label: 'Photos' },
   // NAV END
   { to: 'team', label: 'Team' },
 ];

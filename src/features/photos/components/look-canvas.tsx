@@ -1,0 +1,139 @@
+import { useLayoutEffect, useRef, useState, type ReactNode } from 'react';
+import { GlPreview, type DrawOptions } from '../lib/gl-preview';
+import { paintCpu, type CpuFrame } from '../lib/cpu-preview';
+import { previewEngine } from '../lib/preview-engine';
+import type { LoadedPhoto } from '../hooks/use-loaded-photo';
+import type { TimedLut } from '../hooks/use-preview-lut';
+
+export type Renderer = 'gl' | 'cpu';
+
+/** One latency record: from the change to the frame on screen. */
+export interface PreviewTiming {
+  /** ms from the input to the drawn frame */
+  total: number;
+  /** ms the worker spent building the table */
+  table: number;
+  /** ms of the draw itself */
+  draw: number;
+  renderer: Renderer;
+  width: number;
+  height: number;
+}
+
+declare global {
+  interface Window {
+    /** every preview frame's timing, for the browser test and the curious (newest last) */
+    __grisaillePreview?: PreviewTiming[];
+  }
+}
+
+/** Tables already timed (a remount or a change of view is not a retune and is not timed again). */
+const timedAlready = new WeakSet<TimedLut>();
+
+function record(t: PreviewTiming) {
+  (window.__grisaillePreview ??= []).push(t);
+  if (window.__grisaillePreview.length > 200) window.__grisaillePreview.shift();
+}
+
+/**
+ * A photo through a look, live: WebGL2 when the browser has it, otherwise the worker (CPU). The live
+ * canvas is 1600 px wide (narrower previews keep their width) and scaled to fit by CSS; comparisons
+ * use a smaller frame. Children are laid over it (sampler rectangle, wipe line).
+ */
+export function LookCanvas({ loaded, size = 'live', timed, options, renderer, label, onTiming, children }: {
+  loaded: LoadedPhoto;
+  /** the live frame (at least 1600 px wide) or the small one for comparisons */
+  size?: 'live' | 'small';
+  timed: TimedLut | null;
+  options: DrawOptions;
+  renderer: Renderer;
+  label: string;
+  onTiming?: (t: PreviewTiming) => void;
+  children?: ReactNode;
+}) {
+  const canvas = useRef<HTMLCanvasElement>(null);
+  const gl = useRef<GlPreview | null>(null);
+  const photoKey = useRef('');
+  const cpuFrame = useRef<{ key: string; frame: CpuFrame } | null>(null);
+  const [failed, setFailed] = useState<string | null>(null);
+  const frame = size === 'live' ? loaded.live : loaded.small;
+  const { width, height } = frame;
+  const frameKey = `${loaded.key}|${size}`;
+
+  useLayoutEffect(() => () => {
+    gl.current?.dispose();
+    gl.current = null;
+  }, []);
+
+  useLayoutEffect(() => {
+    const c = canvas.current;
+    if (!c) return;
+    const started = performance.now();
+    const report = (tableMs: number) => {
+      if (!timed || timedAlready.has(timed)) return;
+      timedAlready.add(timed);
+      const t: PreviewTiming = { total: performance.now() - timed.requestedAt, table: tableMs, draw: performance.now() - started, renderer, width, height };
+      record(t);
+      onTiming?.(t);
+    };
+    if (renderer === 'gl') {
+      try {
+        if (!gl.current) gl.current = new GlPreview(c);
+        if (photoKey.current !== frameKey) {
+          gl.current.setPhoto(frame.bitmap);
+          photoKey.current = frameKey;
+        }
+        if (timed) gl.current.setLut(timed.lut);
+        if (gl.current.draw(options) && timed) report(timed.lut.ms);
+        setFailed(null);
+      } catch (e) {
+        setFailed((e as Error).message);
+      }
+      return;
+    }
+    // CPU: the worker renders the pixels, this paints them
+    const ctx = c.getContext('2d');
+    if (!ctx) return;
+    const key = timed?.lut.key ?? '';
+    const wantZones = options.mode === 'zones';
+    const have = cpuFrame.current;
+    if (!timed || options.mode === 'original' || (have?.key === `${key}|${frameKey}` && (!wantZones || have.frame.zone))) {
+      paintCpu(ctx, frame.image, cpuFrame.current?.frame ?? null, options);
+      if (timed && options.mode !== 'original') report(timed.lut.ms);
+      return;
+    }
+    let live = true;
+    previewEngine()
+      .apply(key, frameKey, frame.image, wantZones)
+      .then((r) => {
+        if (!live) return;
+        cpuFrame.current = { key: `${key}|${frameKey}`, frame: r };
+        paintCpu(ctx, frame.image, r, options);
+        report(timed.lut.ms + r.ms);
+      })
+      .catch((e: Error) => live && setFailed(e.message));
+    return () => {
+      live = false;
+    };
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [frame, timed, options.mode, options.wipe, renderer]);
+
+  return (
+    <figure className="relative m-0">
+      <div className="relative overflow-hidden rounded-md border border-paper-line bg-ink">
+        <canvas
+          ref={canvas}
+          width={width}
+          height={height}
+          className="block h-auto w-full"
+          role="img"
+          aria-label={label}
+          data-renderer={renderer}
+          data-lut-key={timed?.lut.key ?? ''}
+        />
+        {children}
+      </div>
+      {failed && <p role="alert" className="mt-1 text-xs text-warn">The preview could not be drawn: {failed}</p>}
+    </figure>
+  );
+}

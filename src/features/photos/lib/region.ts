@@ -1,0 +1,46 @@
+/**
+ * A sampled region of the preview: its mean colour, averaged in linear light (IEC 61966-2-1), and
+ * where that colour lands through a look (the preview's table, shared/photo).
+ */
+import { srgbDecode, srgbEncode } from '../../../../shared/tone/print';
+import { sampleExposureLut } from '../../../../shared/photo/exposure-lut';
+import { greyOfStops, zoneOfStops } from '../../../../shared/photo/tone-curve-table';
+import type { PreviewLut } from './preview-protocol';
+
+export interface Rect {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
+
+const DECODE = Float64Array.from({ length: 256 }, (_, i) => srgbDecode(i / 255));
+
+/** Mean sRGB colour (encoded, 0..1 each) of a rectangle of RGBA pixels, averaged in linear light. */
+export function meanColour(img: ImageData, r: Rect): [number, number, number] {
+  let sr = 0;
+  let sg = 0;
+  let sb = 0;
+  let n = 0;
+  const x1 = Math.min(img.width, r.x + r.width);
+  const y1 = Math.min(img.height, r.y + r.height);
+  for (let y = Math.max(0, r.y); y < y1; y++) {
+    for (let x = Math.max(0, r.x); x < x1; x++) {
+      const i = (y * img.width + x) * 4;
+      sr += DECODE[img.data[i]];
+      sg += DECODE[img.data[i + 1]];
+      sb += DECODE[img.data[i + 2]];
+      n++;
+    }
+  }
+  if (!n) return [0, 0, 0];
+  return [srgbEncode(sr / n), srgbEncode(sg / n), srgbEncode(sb / n)];
+}
+
+export const toHex = (c: readonly number[]) => '#' + c.map((v) => Math.round(Math.min(1, Math.max(0, v)) * 255).toString(16).padStart(2, '0')).join('');
+
+/** Where a colour lands through a look's preview table: stops, zone and the output grey (0..1). */
+export function toneOfColour(lut: PreviewLut, c: readonly number[]): { stops: number; zone: number; grey: number } {
+  const stops = sampleExposureLut(lut, c[0], c[1], c[2]);
+  return { stops: stops + lut.tone.offsetStops, zone: zoneOfStops(lut.tone, stops), grey: greyOfStops(lut.tone, stops) };
+}

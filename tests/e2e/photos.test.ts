@@ -1,0 +1,149 @@
+import { expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { shot, signIn, useAppAndBrowser } from '../helpers/browser';
+import { DEMO_SCENES, demoSceneJpeg } from '../../server/db/seed-content/photos';
+
+/** The preview must be at least this wide (issue 5). */
+const MIN_PREVIEW_WIDTH = 1600;
+/** Slider moves timed per control. */
+const MOVES = 8;
+
+const env = useAppAndBrowser();
+
+interface Timing {
+  total: number;
+  table: number;
+  draw: number;
+  renderer: string;
+  width: number;
+  height: number;
+}
+const timings = (page: Page) => page.evaluate(() => (window.__grisaillePreview ?? []) as Timing[]);
+const lutReady = (page: Page, renderer = 'gl') => page.waitForSelector(`canvas[data-renderer="${renderer}"]:not([data-lut-key=""])`, { timeout: 60_000 });
+
+/** Moves a range input through `values`, waiting for each new frame; answers the frames' timings. */
+async function sweep(page: Page, selector: string, values: number[]): Promise<Timing[]> {
+  const out: Timing[] = [];
+  for (const v of values) {
+    const n = (await timings(page)).length;
+    await page.locator(selector).fill(String(v));
+    await page.waitForFunction((k) => (window.__grisaillePreview?.length ?? 0) > k, n, { timeout: 30_000 });
+    out.push((await timings(page)).at(-1)!);
+  }
+  return out;
+}
+
+function summary(name: string, t: Timing[]) {
+  const total = t.map((x) => x.total).sort((a, b) => a - b);
+  const med = total[Math.floor(total.length / 2)];
+  const line = `${name}: median ${med.toFixed(0)} ms, max ${total.at(-1)!.toFixed(0)} ms from the change to the frame (${t[0].renderer}, ${t[0].width} × ${t[0].height} px; table median ${[...t].sort((a, b) => a.table - b.table)[Math.floor(t.length / 2)].table.toFixed(0)} ms, draw median ${[...t].sort((a, b) => a.draw - b.draw)[Math.floor(t.length / 2)].draw.toFixed(0)} ms)`;
+  console.log(`[preview latency] ${line}`);
+  return med;
+}
+
+/** Colour of a canvas pixel at (fx, fy), fractions of its size. */
+function pixelAt(page: Page, fx: number, fy: number) {
+  return page.evaluate(([x, y]) => {
+    const c = document.querySelector('canvas[data-renderer]') as HTMLCanvasElement;
+    const t = document.createElement('canvas');
+    t.width = c.width;
+    t.height = c.height;
+    const ctx = t.getContext('2d')!;
+    ctx.drawImage(c, 0, 0);
+    return Array.from(ctx.getImageData(Math.floor(x * c.width), Math.floor(y * c.height), 1, 1).data.slice(0, 3));
+  }, [fx, fy]);
+}
+
+it('a makeup artist uploads a photo, retunes the look live, wipes, compares, renders it and keeps a sampled region as a swatch', async () => {
+  const page = await env.browser.newPage({ viewport: { width: 1440, height: 900 } });
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await signIn(page, env.app.url, 'makeup@demo.grisaille.test');
+  const pid = await page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
+  await page.goto(`${env.app.url}/p/${pid}`);
+  await page.getByRole('navigation', { name: 'Production' }).getByRole('link', { name: 'Photos' }).click();
+  await page.getByRole('heading', { name: 'Photos', level: 1 }).waitFor();
+
+  // upload
+  const jpg = await demoSceneJpeg(DEMO_SCENES[1], 2400, 1600);
+  await page.locator('#photo-file').setInputFiles({ name: 'lacquer box test.jpg', mimeType: 'image/jpeg', buffer: jpg });
+  await page.getByRole('button', { name: /lacquer box test/ }).waitFor();
+  await lutReady(page);
+  const canvasWidth = await page.locator('canvas[data-renderer]').evaluate((c: HTMLCanvasElement) => c.width);
+  expect(canvasWidth).toBeGreaterThanOrEqual(MIN_PREVIEW_WIDTH);
+  await shot(page, 'photos-01-uploaded-look');
+
+  // live: the light's colour temperature, then a filter's cut-off on the cyan look
+  const cct = await sweep(page, '#tune-kelvin', Array.from({ length: MOVES }, (_, i) => 2600 + i * 150));
+  summary('light CCT, WebGL2', cct);
+  await page.getByLabel('Look', { exact: true }).selectOption({ label: 'Panchromatic + red-absorbing cyan' });
+  await page.locator('#tune-filter-0').waitFor();
+  await lutReady(page);
+  const cut = await sweep(page, '#tune-filter-0', Array.from({ length: MOVES }, (_, i) => 500 + i * 10));
+  summary('filter cut-off, WebGL2', cut);
+  await shot(page, 'photos-02-retuned');
+
+  // zone map
+  await page.getByRole('button', { name: 'Zones' }).click();
+  await page.getByText(/accent lines/).waitFor();
+  await shot(page, 'photos-03-zones');
+  await page.getByRole('button', { name: 'Grey' }).click();
+
+  // wipe: colour on the left, grey on the right
+  await page.getByRole('button', { name: 'Wipe' }).click();
+  await page.locator('#wipe-pos').fill('50');
+  await page.waitForTimeout(200);
+  const left = await pixelAt(page, 0.1, 0.3);
+  const right = await pixelAt(page, 0.9, 0.3);
+  expect(new Set(right).size).toBe(1);
+  expect(Math.max(...left) - Math.min(...left)).toBeGreaterThan(5);
+  await shot(page, 'photos-04-wipe');
+
+  // compare three looks side by side
+  await page.getByRole('button', { name: 'Compare' }).click();
+  await page.waitForFunction(() => document.querySelectorAll('canvas[data-renderer]:not([data-lut-key=""])').length >= 3, undefined, { timeout: 60_000 });
+  await shot(page, 'photos-05-compare');
+
+  // full-resolution render with progress, then the download
+  await page.getByRole('button', { name: 'Look', exact: true }).click();
+  await page.getByRole('button', { name: 'Render full resolution' }).click();
+  await page.getByRole('progressbar', { name: 'Render progress' }).waitFor();
+  const link = page.getByRole('link', { name: /Download 16-bit PNG/ });
+  await link.waitFor({ timeout: 60_000 });
+  const href = await link.getAttribute('href');
+  const dl = await page.evaluate((u) => fetch(u!).then((r) => ({ status: r.status, type: r.headers.get('content-type') })), href);
+  expect(dl).toEqual({ status: 200, type: 'image/png' });
+  await shot(page, 'photos-06-rendered');
+
+  // sample the lacquer box (around 68 % across, 68 % down in this scene) and keep it as a swatch
+  const box = (await page.getByTestId('sampler').boundingBox())!;
+  await page.mouse.move(box.x + box.width * 0.64, box.y + box.height * 0.66);
+  await page.mouse.down();
+  await page.mouse.move(box.x + box.width * 0.7, box.y + box.height * 0.7, { steps: 5 });
+  await page.mouse.up();
+  await page.getByTestId('sample-reading').waitFor();
+  const zone = await page.getByTestId('sample-zone').textContent();
+  expect(zone).toMatch(/^(0|I|II|III|IV|V|VI|VII|VIII|IX|X)$/);
+  await page.getByLabel('Swatch name').fill('Lacquer box, sampled');
+  await page.getByRole('button', { name: 'Keep as swatch' }).click();
+  await page.getByText(/Kept as swatch “Lacquer box, sampled”/).waitFor();
+  await shot(page, 'photos-07-sampled');
+  const swatches = await page.evaluate((p) => fetch(`/api/productions/${p}/swatches`).then((r) => r.json()), pid);
+  const kept = swatches.swatches.find((s: { name: string }) => s.name === 'Lacquer box, sampled');
+  expect(kept).toMatchObject({ department: 'makeup', spectrum: 'estimated', origin: { type: 'photo' } });
+  expect(errors).toEqual([]);
+});
+
+it('without WebGL2 the worker renders the preview', async () => {
+  const page = await env.browser.newPage({ viewport: { width: 1440, height: 900 } });
+  await signIn(page, env.app.url, 'lab@demo.grisaille.test');
+  const pid = await page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
+  const photos = await page.evaluate((p) => fetch(`/api/productions/${p}/photos`).then((r) => r.json()), pid);
+  const still = photos.photos.find((p: { name: string }) => p.name === DEMO_SCENES[1].name);
+  await page.goto(`${env.app.url}/p/${pid}/photos?renderer=cpu&photo=${still.id}`);
+  await lutReady(page, 'cpu');
+  expect(await page.getByRole('button', { name: 'Upload a photo' }).count()).toBe(0);
+  const cct = await sweep(page, '#tune-kelvin', Array.from({ length: 4 }, (_, i) => 2700 + i * 200));
+  summary('light CCT, worker fallback', cct);
+  await shot(page, 'photos-08-worker-fallback');
+});
