@@ -2,8 +2,9 @@
  * Photo renders at 24 megapixels (6000 × 4000, the demo still life rendered by the project as an
  * 8-bit sRGB JPEG, quality 92, with grain), in the same run:
  * - render_24mp_ms: the renderer through a look (tungsten, red-absorbing cyan on the lens,
- *   panchromatic): decode, the look's tables built from scratch every time (65³ nodes, then the
- *   full table of every 8-bit colour), one pass, JPEG encode;
+ *   panchromatic): decode, the look's table built from scratch every time (the look's exposures at
+ *   the upsampling table's nodes, and an empty table of every 8-bit colour that the pass fills with
+ *   the engine's computation for each colour it meets), one pass, JPEG encode;
  * - greyscale_24mp_ms: sharp's own greyscale conversion of the same file to the same format with the
  *   same encoder settings (`greyscale().jpeg(RENDER_JPEG)`);
  * - render_ratio: their ratio (target ≤ 1.5);

@@ -1,14 +1,14 @@
 /**
- * A second thread for full-resolution renders. sharp decodes and encodes on its own threads; the table
- * work and the pass are JavaScript, so the main thread shares them with one worker: half of a look's
- * full table (shared/photo/full-lut.ts) while the photo decodes, then the bottom half of the pass.
+ * A second thread for full-resolution renders. sharp decodes and encodes on its own threads; the pass is
+ * JavaScript, so the main thread shares it with one worker: the worker takes the bottom half of the
+ * pixels (with a look's lazily filled exact table, shared/photo/exact-lut.ts, or a 16-bit plan).
  * The worker runs the very same functions (passed as their source text, so it needs no TypeScript
  * loader: they refer to nothing outside their arguments); data reaches it through SharedArrayBuffers.
  * Any failure (no worker, an error in it) answers false and the caller does the work itself.
  */
 import { Worker } from 'node:worker_threads';
 import { applyLut16, type GreyBuffer, type LutPlan16 } from '../../shared/photo/apply-lut';
-import { applyFullLut, fillFullLut, type FullLutFill } from '../../shared/photo/full-lut';
+import { applyExactLut, type ExactLut } from '../../shared/photo/exact-lut';
 
 /** Images smaller than this are rendered on one thread, pixels. */
 export const PARALLEL_MIN_PIXELS = 2_000_000;
@@ -17,10 +17,11 @@ const KEEP_STAGING_BYTES = 160 * 1024 * 1024;
 
 const WORKER_SOURCE = `
 const { parentPort } = require('node:worker_threads');
-const fillFullLut = ${fillFullLut.toString()};
-const applyFullLut = ${applyFullLut.toString()};
+// the TypeScript loader may wrap inner functions as __name(fn, "name"); the worker runs plain JS
+const __name = (f) => f;
+const applyExactLut = ${applyExactLut.toString()};
 const applyLut16 = ${applyLut16.toString()};
-const typed = { u8: Uint8Array, u16: Uint16Array, i32: Int32Array, f32: Float32Array };
+const typed = { u8: Uint8Array, u16: Uint16Array, u32: Uint32Array, i32: Int32Array, f32: Float32Array, f64: Float64Array };
 const revive = (o) => {
   const out = {};
   for (const [k, v] of Object.entries(o)) out[k] = v && v.sab instanceof SharedArrayBuffer ? new typed[v.type](v.sab) : v;
@@ -28,13 +29,10 @@ const revive = (o) => {
 };
 parentPort.on('message', (m) => {
   try {
-    if (m.op === 'fill') fillFullLut(revive(m.fill));
-    else {
-      const src = m.bits === 16 ? new Uint16Array(m.src, 0, m.srcLength) : new Uint8Array(m.src, 0, m.srcLength);
-      const dst = (m.outBits === 16 ? new Uint16Array(m.dst) : new Uint8Array(m.dst)).subarray(m.from);
-      if (m.op === 'full8') applyFullLut(new typed[m.codes.type](m.codes.sab), src, 3, dst, 0, m.to - m.from);
-      else applyLut16(revive(m.plan), src, 3, dst, 0, m.to - m.from);
-    }
+    const src = m.bits === 16 ? new Uint16Array(m.src, 0, m.srcLength) : new Uint8Array(m.src, 0, m.srcLength);
+    const dst = (m.outBits === 16 ? new Uint16Array(m.dst) : new Uint8Array(m.dst)).subarray(m.from);
+    if (m.op === 'exact8') applyExactLut(revive(m.lut), src, 3, dst, 0, m.to - m.from);
+    else applyLut16(revive(m.plan), src, 3, dst, 0, m.to - m.from);
     parentPort.postMessage({ ok: true });
   } catch (e) {
     parentPort.postMessage({ ok: false, message: String((e && e.message) || e) });
@@ -43,14 +41,16 @@ parentPort.on('message', (m) => {
 
 interface SharedArray {
   sab: SharedArrayBuffer;
-  type: 'u8' | 'u16' | 'i32' | 'f32';
+  type: 'u8' | 'u16' | 'u32' | 'i32' | 'f32' | 'f64';
 }
 
 function typeOf(a: ArrayBufferView): SharedArray['type'] {
   if (a instanceof Uint8Array) return 'u8';
   if (a instanceof Uint16Array) return 'u16';
+  if (a instanceof Uint32Array) return 'u32';
   if (a instanceof Int32Array) return 'i32';
   if (a instanceof Float32Array) return 'f32';
+  if (a instanceof Float64Array) return 'f64';
   throw new Error('unsupported table type');
 }
 
@@ -125,25 +125,32 @@ class PassPool {
     return bits === 8 ? new Uint8Array(sab) : new Uint16Array(sab);
   }
 
-  /** Fills red rows of a full table on the worker (its `codes` must come from `alloc`). */
-  fill(job: FullLutFill): Promise<boolean> {
-    if (!(job.codes.buffer instanceof SharedArrayBuffer)) return Promise.resolve(false);
-    return this.post({ op: 'fill', fill: { ...job, codes: shared(job.codes), stops: shared(job.stops), out: shared(job.out) } });
+  /** A zeroed lazy table of 2²⁴ entries both threads can fill (exact-lut.ts): Uint16 for 8-bit output, Uint32 for 16-bit. */
+  allocLazy(bits: 8 | 16): Uint16Array | Uint32Array {
+    const n = 1 << 24;
+    const bytes = n * (bits === 8 ? 2 : 4);
+    const buf = this.broken ? new ArrayBuffer(bytes) : new SharedArrayBuffer(bytes);
+    const codes = bits === 8 ? new Uint16Array(buf) : new Uint32Array(buf);
+    // touch every page now, while the photo decodes: the pass then meets no page faults (about 30 ms
+    // on the 24-megapixel benchmark, measured); writing 0 keeps the table empty
+    for (let i = 0; i < n; i += 1024) codes[i] = 0;
+    return codes;
   }
 
   /**
-   * Renders pixels [from, n) of `src` on the worker into `dst` (from `alloc`), with a full table (8-bit
-   * input) or a 16-bit plan. Resolves false when the worker cannot (the caller then renders them).
+   * Renders pixels [from, n) of `src` on the worker into `dst` (from `alloc`), with a lazy exact table
+   * (8-bit input; its codes from `allocLazy`, or the worker's share is refused) or a 16-bit plan. Resolves false when the worker cannot (the caller then renders them).
    */
-  pass(table: { codes: Uint8Array | Uint16Array } | { plan: LutPlan16 }, bits: 8 | 16, src: Uint8Array | Uint16Array, dst: GreyBuffer, from: number, n: number): Promise<boolean> {
+  pass(table: { lut: ExactLut } | { plan: LutPlan16 }, bits: 8 | 16, src: Uint8Array | Uint16Array, dst: GreyBuffer, from: number, n: number): Promise<boolean> {
     if (!(dst.buffer instanceof SharedArrayBuffer) || !this.get()) return Promise.resolve(false);
+    if ('lut' in table && !(table.lut.codes.buffer instanceof SharedArrayBuffer)) return Promise.resolve(false);
     const part = src.subarray(from * 3, n * 3);
     const bytes = part.byteLength;
     if (bytes > KEEP_STAGING_BYTES) return Promise.resolve(false); // very large images: one thread, no second copy
     if (!this.staging || this.staging.byteLength < bytes) this.staging = new SharedArrayBuffer(bytes);
     new Uint8Array(this.staging, 0, bytes).set(new Uint8Array(part.buffer, part.byteOffset, bytes));
     const common = { bits, src: this.staging, srcLength: bytes / (bits === 16 ? 2 : 1), dst: dst.buffer, outBits: dst instanceof Uint16Array ? 16 : 8, from, to: n };
-    return 'codes' in table ? this.post({ op: 'full8', codes: shared(table.codes), ...common }) : this.post({ op: 'plan16', plan: shareObject(table.plan), ...common });
+    return 'lut' in table ? this.post({ op: 'exact8', lut: shareObject(table.lut), ...common }) : this.post({ op: 'plan16', plan: shareObject(table.plan), ...common });
   }
 }
 

@@ -2,14 +2,16 @@
  * Full-resolution photo renders through a look: sharp decodes (orientation applied, an embedded ICC
  * profile converted to sRGB, transparency flattened on white) to a raw Uint8 or Uint16 buffer; one
  * pass applies the look's table; sharp encodes the grey as a 16-bit PNG or a JPEG.
- * The table depends on the look only, so it is built while sharp decodes (on sharp's own threads):
- * for 8-bit photos the full table of every colour (shared/photo/full-lut.ts), a pixel then costing one
- * read; for 16-bit photos the trilinear plan (shared/photo/apply-lut.ts). On large images a worker
- * thread takes half of the table and the bottom half of the pass (photo-pass-pool.ts).
+ * The table depends on the look only, so it is prepared while sharp decodes (on sharp's own threads):
+ * for 8-bit photos a table of every colour filled lazily during the pass by the engine's own per-pixel
+ * computation (only the colours the photo holds are computed: shared/photo/exact-lut.ts), a pixel then
+ * costing one read once its colour was met; for 16-bit photos the 65³ table's trilinear plan
+ * (shared/photo/apply-lut.ts). On large images a worker thread takes the bottom half of the pass
+ * (photo-pass-pool.ts).
  */
 import sharp, { type JpegOptions, type PngOptions } from 'sharp';
 import { applyLut16, planLut16, type LutPlan16, type OutputBits } from '../../shared/photo/apply-lut';
-import { applyFullLut, fillFullLut, fullLutFill } from '../../shared/photo/full-lut';
+import { applyExactLut, exactLut, type ExactLut } from '../../shared/photo/exact-lut';
 import { buildPhotoLut, type PhotoToneModel } from '../../shared/photo/look-photo-model';
 import { RENDER_LUT_SIZE } from '../../shared/photo/exposure-lut';
 import type { RenderFormat } from '../../shared/schemas/photo';
@@ -25,17 +27,16 @@ export const RENDER_PNG: PngOptions = { compressionLevel: 6 };
 export const RENDER_CHUNK_PIXELS = 1 << 21;
 
 /** A look's table as the renderer applies it. */
-export type RenderTable = { kind: 'full8'; codes: Uint8Array | Uint16Array } | { kind: 'plan16'; plan: LutPlan16 };
+export type RenderTable = { kind: 'exact8'; lut: ExactLut } | { kind: 'plan16'; plan: LutPlan16 };
 
-/** Builds the render table of a look for an input and output depth (half of a full table on the worker). */
+/**
+ * Builds the render table of a look for an input and output depth: for 8-bit input an empty lazy exact
+ * table (32 MB at 8-bit output, 64 MB at 16-bit, in shared memory; a cached table keeps the colours
+ * earlier renders filled in); for 16-bit input the 65³ table and its plan.
+ */
 export async function buildRenderTable(model: PhotoToneModel, inputBits: 8 | 16, outputBits: OutputBits): Promise<RenderTable> {
-  const lut = buildPhotoLut(model, RENDER_LUT_SIZE);
-  if (inputBits === 16) return { kind: 'plan16', plan: planLut16(lut, model.tone, outputBits) };
-  const codes = passPool.alloc(1 << 24, outputBits);
-  const other = passPool.fill(fullLutFill(codes, lut, model.tone, outputBits, 128, 256));
-  fillFullLut(fullLutFill(codes, lut, model.tone, outputBits, 0, 128));
-  if (!(await other)) fillFullLut(fullLutFill(codes, lut, model.tone, outputBits, 128, 256));
-  return { kind: 'full8', codes };
+  if (inputBits === 8) return { kind: 'exact8', lut: exactLut(passPool.allocLazy(outputBits), model, outputBits) };
+  return { kind: 'plan16', plan: planLut16(buildPhotoLut(model, RENDER_LUT_SIZE), model.tone, outputBits) };
 }
 
 export interface RenderProgress {
@@ -86,6 +87,13 @@ export function encodeGrey(grey: Uint8Array | Uint16Array, width: number, height
     : sharp(grey, { raw }).toColourspace('grey16').png(RENDER_PNG).toBuffer();
 }
 
+/** A buffer of `n` grey codes, shared with the worker when the image is large enough for two threads, its pages touched. */
+function greyBuffer(n: number, bits: OutputBits): Uint8Array | Uint16Array {
+  const grey = n >= PARALLEL_MIN_PIXELS ? passPool.alloc(n, bits) : bits === 8 ? new Uint8Array(n) : new Uint16Array(n);
+  for (let i = 0; i < n; i += 2048) grey[i] = 0;
+  return grey;
+}
+
 /** Renders a photo through a look's table at full resolution. */
 export async function renderPhoto(req: RenderRequest): Promise<RenderResult> {
   const t0 = performance.now();
@@ -94,7 +102,11 @@ export async function renderPhoto(req: RenderRequest): Promise<RenderResult> {
   report({ stage: 'decoding', progress: 0 });
   const decoding = decodeSrgb(req.input, req.bitDepth, req.hasProfile, req.maxPixels).then((d) => ({ ...d, at: performance.now() }));
   decoding.catch(() => {});
+  // the output buffer, sized from the header and its pages touched while the image decodes
+  const header = sharp(req.input).metadata().catch(() => null);
   const table = await req.table(req.bitDepth, outBits);
+  const meta = await header;
+  const early = meta?.width && meta.height ? greyBuffer(meta.width * meta.height, outBits) : null;
   const tableMs = performance.now() - t0;
   report({ stage: 'decoding', progress: 0.25 });
   const { data, info, at: decodedAt } = await decoding;
@@ -109,13 +121,13 @@ export async function renderPhoto(req: RenderRequest): Promise<RenderResult> {
       : data;
   if ((req.bitDepth === 16) !== (table.kind === 'plan16')) throw new Error('the table does not fit the input depth');
   const parallel = n >= PARALLEL_MIN_PIXELS;
-  const grey = parallel ? passPool.alloc(n, outBits) : outBits === 8 ? new Uint8Array(n) : new Uint16Array(n);
+  const grey = early && early.length === n ? early : greyBuffer(n, outBits);
   const split = parallel ? Math.floor(n / 2) : n;
-  const other = parallel ? passPool.pass(table.kind === 'full8' ? { codes: table.codes } : { plan: table.plan }, req.bitDepth, src, grey, split, n) : Promise.resolve(true);
+  const other = parallel ? passPool.pass(table.kind === 'exact8' ? { lut: table.lut } : { plan: table.plan }, req.bitDepth, src, grey, split, n) : Promise.resolve(true);
   const pass = async (start: number, end: number, share: number) => {
     for (let from = start; from < end; from += RENDER_CHUNK_PIXELS) {
       const to = Math.min(end, from + RENDER_CHUNK_PIXELS);
-      if (table.kind === 'full8') applyFullLut(table.codes, src, 3, grey, from, to);
+      if (table.kind === 'exact8') applyExactLut(table.lut, src, 3, grey, from, to);
       else applyLut16(table.plan, src, 3, grey, from, to);
       report({ stage: 'rendering', progress: 0.3 + 0.3 * share * ((to - start) / (end - start)) });
       if (to < end) await yieldToLoop();

@@ -7,7 +7,7 @@
  * all 256 × 256 code pairs at every blue node (a "partial" table, 65,536 × size entries); a pixel then
  * costs one interpolation along blue — the same trilinear result, at a fraction of the work.
  * 16-bit input: full trilinear per pixel, with the axis positions of all 65,536 codes precomputed.
- * (For whole photos at 8 bits the server goes one step further: full-lut.ts.)
+ * (For whole photos at 8 bits the server computes each colour exactly instead: exact-lut.ts.)
  * Stops are carried in fixed point (1/STOPS_Q stop) and mapped to the output code by one table.
  * Output: grey codes, 0..255 (8-bit) or 0..65535 (16-bit), one channel.
  */

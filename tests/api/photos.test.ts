@@ -212,3 +212,27 @@ describe('the live preview’s look', () => {
     for (const p of demo) expect(p.previewWidth).toBeGreaterThanOrEqual(1600);
   });
 });
+
+describe('deleting a production', () => {
+  it('removes its photos’ files (originals, previews, cached renders) once the rows are gone, and no one else’s', async () => {
+    const created = await camera.post('/api/productions').send({ name: 'Photo deletion test' });
+    expect(created.status).toBe(201);
+    const other = created.body.production.id as number;
+    const p = (await uploadOf(camera, other, await sceneJpeg(300, 200), 'to-delete.jpg')).body.photo;
+    const done = await renderOf(camera, other, p.id, { look: TEST_LOOK, format: 'png16' });
+    expect(done.status.status).toBe('done');
+    const row = await t.ctx.ds.getRepository(Photo).findOneByOrFail({ id: p.id });
+    const photoDir = path.join(t.dataDir, 'uploads', 'photos', row.storageKey);
+    const renderDir = path.join(t.dataDir, 'cache', 'photo-renders', row.storageKey);
+    expect(fs.readdirSync(photoDir).sort()).toEqual(['original.jpg', 'preview.jpg', 'thumb.jpg']);
+    expect(fs.readdirSync(renderDir).length).toBeGreaterThan(0);
+    const kept = await t.ctx.ds.getRepository(Photo).find({ where: { production: { id: pid } } });
+    expect(kept.length).toBeGreaterThan(0);
+
+    expect((await camera.delete(`/api/productions/${other}`)).status).toBe(204);
+    expect(await t.ctx.ds.getRepository(Photo).countBy({ id: p.id })).toBe(0);
+    expect(fs.existsSync(photoDir)).toBe(false);
+    expect(fs.existsSync(renderDir)).toBe(false);
+    for (const k of kept) expect(fs.existsSync(path.join(t.dataDir, 'uploads', 'photos', k.storageKey))).toBe(true);
+  });
+});

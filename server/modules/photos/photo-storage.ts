@@ -15,9 +15,7 @@ export class PhotoStorage {
   readonly rendersRoot: string;
 
   constructor(dataDir: string) {
-    this.photosRoot = path.join(dataDir, 'uploads', 'photos');
-    this.incomingDir = path.join(dataDir, 'uploads', '.incoming');
-    this.rendersRoot = path.join(dataDir, 'cache', 'photo-renders');
+    ({ photosRoot: this.photosRoot, incomingDir: this.incomingDir, rendersRoot: this.rendersRoot } = photoRoots(dataDir));
     fs.mkdirSync(this.photosRoot, { recursive: true });
     fs.mkdirSync(this.incomingDir, { recursive: true });
     fs.mkdirSync(this.rendersRoot, { recursive: true });
@@ -91,6 +89,28 @@ export class PhotoStorage {
   remove(key: string): void {
     fs.rmSync(this.dir(key), { recursive: true, force: true });
     fs.rmSync(this.renderDir(key), { recursive: true, force: true });
+  }
+}
+
+/** The three roots of photo files under a data directory (layout in PhotoStorage's comment). */
+export function photoRoots(dataDir: string) {
+  return {
+    photosRoot: path.join(dataDir, 'uploads', 'photos'),
+    incomingDir: path.join(dataDir, 'uploads', '.incoming'),
+    rendersRoot: path.join(dataDir, 'cache', 'photo-renders'),
+  };
+}
+
+/**
+ * Removes the files of photos by storage key (originals, previews, thumbnails, cached renders), e.g.
+ * after their production's row was deleted; a key that is not a storage key is skipped.
+ */
+export function removePhotoFiles(dataDir: string, keys: string[]): void {
+  const { photosRoot, rendersRoot } = photoRoots(dataDir);
+  for (const key of keys) {
+    if (!/^[0-9a-f]{32}$/.test(key)) continue;
+    removeQuietly(path.join(photosRoot, key));
+    removeQuietly(path.join(rendersRoot, key));
   }
 }
 

@@ -17,8 +17,8 @@ import { PhotoStorage } from './photo-storage';
 import { AppError } from '../../errors';
 
 /** Bump when the renderer's output changes, so old cached renders are not served. */
-export const RENDER_VERSION = 1;
-/** Look tables kept in memory (16 MB each at 8-bit output, 32 MB at 16-bit), most recent first. */
+export const RENDER_VERSION = 2;
+/** Look tables kept in memory (8-bit photos: 32 MB each at 8-bit output, 64 MB at 16-bit), most recent first. */
 const TABLE_CACHE = 3;
 /** Finished renders kept per photo on disk; the oldest beyond this are removed. */
 const RENDERS_KEPT_PER_PHOTO = 16;

@@ -8,7 +8,7 @@ import { ProductionsService } from './productions.service';
 
 export function productionsRouter(ctx: AppContext): Router {
   const r = Router();
-  const svc = new ProductionsService(ctx.ds);
+  const svc = new ProductionsService(ctx.ds, ctx.env.dataDir);
 
   r.get('/productions', requireAuth, handle(async (req, res) => void res.json({ productions: await svc.listFor(req.user!) })));
   r.post(

@@ -1,6 +1,8 @@
 import type { DataSource } from 'typeorm';
 import { Production } from '../../db/entities/production.entity';
 import { Membership } from '../../db/entities/membership.entity';
+import { Photo } from '../../db/entities/photo.entity';
+import { removePhotoFiles } from '../photos/photo-storage';
 import type { User } from '../../db/entities/user.entity';
 import { NotFoundError } from '../../errors';
 import type { ProductionCreateInput } from '../../../shared/schemas/auth';
@@ -18,7 +20,11 @@ export function productionView(p: Production, m?: Membership) {
 }
 
 export class ProductionsService {
-  constructor(private ds: DataSource) {}
+  /** `dataDir`: where photo files live (their production's deletion removes them). */
+  constructor(
+    private ds: DataSource,
+    private dataDir?: string,
+  ) {}
 
   async listFor(user: User) {
     const ms = await this.ds.getRepository(Membership).find({
@@ -51,7 +57,13 @@ export class ProductionsService {
     return productionView(await repo.save(p), m);
   }
 
+  /** Deletes the production (its rows cascade), then, once that has committed, its photos' files. */
   async remove(m: Membership) {
-    await this.ds.getRepository(Production).delete({ id: m.production.id });
+    const keys = await this.ds.transaction(async (t) => {
+      const photos = await t.find(Photo, { where: { production: { id: m.production.id } }, select: { id: true, storageKey: true } });
+      await t.delete(Production, { id: m.production.id });
+      return photos.map((p) => p.storageKey);
+    });
+    if (this.dataDir) removePhotoFiles(this.dataDir, keys);
   }
 }

@@ -74,20 +74,3 @@ describe('one pass over raw pixels', () => {
     expect(STOPS_Q).toBe(2048);
   });
 });
-
-describe('the full table of every 8-bit colour', () => {
-  it('holds exactly what the one-pass renderer gives each colour, filled in two halves', async () => {
-    const { fullLutFill, fillFullLut, applyFullLut } = await import('../../../shared/photo/full-lut');
-    const codes = new Uint16Array(1 << 24);
-    fillFullLut(fullLutFill(codes, lut, tone, 16, 0, 128));
-    fillFullLut(fullLutFill(codes, lut, tone, 16, 128, 256));
-    const rnd = random(13);
-    const n = 20000;
-    const src = Uint8Array.from({ length: n * 3 }, () => Math.floor(rnd() * 256));
-    const a = new Uint16Array(n);
-    const b = new Uint16Array(n);
-    applyLut8(planLut8(lut, tone, 16), src, 3, a, 0, n);
-    applyFullLut(codes, src, 3, b, 0, n);
-    expect(Array.from(b)).toEqual(Array.from(a));
-  });
-});

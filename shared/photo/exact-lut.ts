@@ -1,0 +1,153 @@
+/**
+ * The table of every 8-bit colour for whole-photo renders, filled lazily and exactly: 2²⁴ entries, index
+ * r << 16 | g << 8 | b, each computed the first time a pixel of that colour is met, by the engine's
+ * per-pixel computation itself (look-photo-model.ts `pixelStops`: the colour's cell in the upsampling
+ * table, the trilinear blend of the node exposures, log2 from middle grey, floored), then the tone
+ * curve through the fixed point of apply-lut.ts (1/STOPS_Q stop, < 0.02/255 of grey).
+ * So no 3-D table of nodes stands between a pixel and the engine (no interpolation error anywhere
+ * in the cube, black and saturated edges included), and only the colours the photo holds are
+ * computed (the 24-megapixel benchmark still life holds about 40,000 of 16.8 million).
+ * Entries carry a flag bit above the code (bit 8 for 8-bit output, bit 16 for 16-bit); 0 = not yet.
+ * Two threads may fill it at once (shared memory): both write the same value, so a race is harmless.
+ * `applyExactLut` refers to nothing outside its arguments (the server also runs it in a worker), so
+ * the cell location of shared/spectral/upsample-table.ts `locateCell` and `interpolateAtCell` is
+ * written out in it; tests/unit/photo/exact-lut.test.ts checks it against those functions.
+ */
+import { FLOOR_STOPS, MIDDLE_GREY } from '../spectral/limits';
+import { srgbDecode } from '../tone/print';
+import { MAX_Q, MIN_STOPS, outputCodes, STOPS_Q, type GreyBuffer, type OutputBits } from './apply-lut';
+import type { PhotoToneModel } from './look-photo-model';
+
+/** What the lazy exact table needs (typed arrays may live in shared memory). */
+export interface ExactLut {
+  /** flag | code per colour (Uint16 for 8-bit output, Uint32 for 16-bit), zeroed at first */
+  codes: Uint16Array | Uint32Array;
+  /** the flag bit (256 or 65536) */
+  flag: number;
+  /** linear sRGB value of each 8-bit code (IEC 61966-2-1) */
+  lin: Float64Array;
+  /** the upsampling table's resolution R and z nodes, and the look's exposure m at each of its nodes */
+  resolution: number;
+  zNodes: Float32Array;
+  nodeM: Float64Array;
+  /** fixed-point stops → output code (apply-lut.ts outputCodes) */
+  out: Uint8Array | Uint16Array;
+  minStops: number;
+  q: number;
+  maxQ: number;
+  floorStops: number;
+  middleGrey: number;
+}
+
+/** A lazy exact table for a look and output depth (`codes`: 2²⁴ zeroed entries from the caller, e.g. in shared memory). */
+export function exactLut(codes: Uint16Array | Uint32Array, model: PhotoToneModel, bits: OutputBits): ExactLut {
+  if (codes.length !== 1 << 24) throw new Error('exactLut: codes must hold 2^24 entries');
+  const lin = new Float64Array(256);
+  for (let c = 0; c < 256; c++) lin[c] = srgbDecode(c / 255);
+  return {
+    codes,
+    flag: bits === 8 ? 256 : 65536,
+    lin,
+    resolution: model.upsample.resolution,
+    zNodes: model.upsample.zNodes,
+    nodeM: model.nodeM,
+    out: outputCodes(model.tone, bits),
+    minStops: MIN_STOPS,
+    q: STOPS_Q,
+    maxQ: MAX_Q,
+    floorStops: FLOOR_STOPS,
+    middleGrey: MIDDLE_GREY,
+  };
+}
+
+/** Renders pixels [from, to) of 8-bit interleaved RGB(A) `src` (alpha ignored) into `dst`, one grey code a pixel, filling the table on the way. */
+export function applyExactLut(t: ExactLut, src: ArrayLike<number>, channels: number, dst: GreyBuffer, from: number, to: number): void {
+  const codes = t.codes;
+  const mask = t.flag - 1;
+  // one colour, computed as look-photo-model.ts pixelStops does (kept out of the hot loop)
+  const miss = (key: number): number => {
+    const { lin, resolution: R, zNodes: zn, nodeM: vals } = t;
+    const r = lin[key >> 16];
+    const g = lin[(key >> 8) & 255];
+    const b = lin[key & 255];
+    let l: number;
+    let z: number;
+    let u: number;
+    let v: number;
+    if (r >= g && r >= b) {
+      l = 0;
+      z = r;
+      u = g;
+      v = b;
+    } else if (g >= b) {
+      l = 1;
+      z = g;
+      u = b;
+      v = r;
+    } else {
+      l = 2;
+      z = b;
+      u = r;
+      v = g;
+    }
+    const x = z > 0 ? u / z : 0;
+    const y = z > 0 ? v / z : 0;
+    let lo = 0;
+    let hi = R - 1;
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      if (zn[mid] <= z) lo = mid;
+      else hi = mid;
+    }
+    const zi = Math.min(lo, R - 2);
+    const xs = x * (R - 1);
+    const ys = y * (R - 1);
+    const xi = Math.min(Math.floor(xs), R - 2);
+    const yi = Math.min(Math.floor(ys), R - 2);
+    const fx = xs - xi;
+    const fy = ys - yi;
+    const fz = Math.min(1, Math.max(0, (z - zn[zi]) / (zn[zi + 1] - zn[zi])));
+    const p = ((l * R + zi) * R + yi) * R + xi;
+    const sy = R;
+    const sz = R * R;
+    const c00 = vals[p] * (1 - fx) + vals[p + 1] * fx;
+    const c01 = vals[p + sy] * (1 - fx) + vals[p + sy + 1] * fx;
+    const c10 = vals[p + sz] * (1 - fx) + vals[p + sz + 1] * fx;
+    const c11 = vals[p + sz + sy] * (1 - fx) + vals[p + sz + sy + 1] * fx;
+    const m = (c00 * (1 - fy) + c01 * fy) * (1 - fz) + (c10 * (1 - fy) + c11 * fy) * fz;
+    const stops = m > 0 ? Math.max(t.floorStops, Math.log2(m / t.middleGrey)) : t.floorStops;
+    const qv = ((stops - t.minStops) * t.q + 0.5) | 0;
+    const c = t.flag | t.out[qv < 0 ? 0 : qv > t.maxQ ? t.maxQ : qv];
+    codes[key] = c;
+    return c;
+  };
+  let j = from;
+  // 3-channel bytes on a 4-byte boundary, little-endian: four pixels from three 32-bit reads (measured
+  // about a third faster than reading the bytes one by one)
+  const bytes = src instanceof Uint8Array ? src : null;
+  if (bytes && channels === 3 && (bytes.byteOffset + from * 3) % 4 === 0 && new Uint8Array(new Uint32Array([1]).buffer)[0] === 1) {
+    const w = new Uint32Array(bytes.buffer, bytes.byteOffset + from * 3, ((to - from) * 3) >> 2);
+    for (let i = 0; j + 3 < to; j += 4, i += 3) {
+      const a = w[i];
+      const b = w[i + 1];
+      const c = w[i + 2];
+      const k0 = ((a & 0xff) << 16) | (a & 0xff00) | ((a >>> 16) & 0xff);
+      const k1 = ((a >>> 8) & 0xff0000) | ((b & 0xff) << 8) | ((b >>> 8) & 0xff);
+      const k2 = (b & 0xff0000) | ((b >>> 16) & 0xff00) | (c & 0xff);
+      const k3 = ((c & 0xff00) << 8) | ((c >>> 8) & 0xff00) | (c >>> 24);
+      let x = codes[k0];
+      dst[j] = (x === 0 ? miss(k0) : x) & mask;
+      x = codes[k1];
+      dst[j + 1] = (x === 0 ? miss(k1) : x) & mask;
+      x = codes[k2];
+      dst[j + 2] = (x === 0 ? miss(k2) : x) & mask;
+      x = codes[k3];
+      dst[j + 3] = (x === 0 ? miss(k3) : x) & mask;
+    }
+  }
+  for (let i = j * channels; j < to; j++, i += channels) {
+    const key = (src[i] << 16) | (src[i + 1] << 8) | src[i + 2];
+    const c = codes[key];
+    dst[j] = (c === 0 ? miss(key) : c) & mask;
+  }
+}
