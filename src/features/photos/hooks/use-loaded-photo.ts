@@ -1,3 +1,4 @@
+import { api } from '../../../lib/api-client';
 import { useEffect, useState } from 'react';
 import type { PhotoView } from '../../../../shared/schemas/photo';
 
@@ -43,9 +44,8 @@ function pixels(bitmap: ImageBitmap): ImageData {
 const cache = new Map<string, Promise<LoadedPhoto>>();
 
 async function load(photo: PhotoView): Promise<LoadedPhoto> {
-  const r = await fetch(photo.urls.preview, { credentials: 'same-origin' });
-  if (!r.ok) throw new Error(`The preview could not be loaded (${r.status}).`);
-  const bitmap = await createImageBitmap(await r.blob(), { colorSpaceConversion: 'none', premultiplyAlpha: 'none' });
+  const blob = await api.get<Blob>(photo.urls.preview, { blob: true });
+  const bitmap = await createImageBitmap(blob, { colorSpaceConversion: 'none', premultiplyAlpha: 'none' });
   const [live, small] = await Promise.all([frame(bitmap, LIVE_WIDTH), frame(bitmap, SMALL_WIDTH)]);
   return { key: `${photo.id}:${photo.urls.preview}`, photo, image: pixels(bitmap), live, small };
 }

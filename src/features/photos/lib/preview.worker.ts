@@ -12,6 +12,7 @@ import { photoLook, type PhotoLookSpectra } from '../../../../shared/photo/compo
 import { buildPhotoLut } from '../../../../shared/photo/look-photo-model';
 import { planLut8, applyLut8, type LutPlan8 } from '../../../../shared/photo/apply-lut';
 import { greyOfStops, type ToneCurveTable } from '../../../../shared/photo/tone-curve-table';
+import { api } from '../../../lib/api-client';
 import type { ExposureLut } from '../../../../shared/photo/exposure-lut';
 import type { PhotoLookView } from '../../../../shared/schemas/photo';
 import type { ToneSettings } from '../../../../shared/schemas/exposure';
@@ -25,9 +26,8 @@ let tables: Promise<{ upsample: UpsampleTable; reflectances: Float32Array }> | n
 function loadTables() {
   tables ??= (async () => {
     const t0 = performance.now();
-    const r = await fetch('/api/library/upsample-table', { credentials: 'same-origin' });
-    if (!r.ok) throw new Error(`the upsampling table could not be loaded (${r.status})`);
-    const upsample = decodeUpsampleTable(new Uint8Array(await r.arrayBuffer()));
+    const blob = await api.get<Blob>('/api/library/upsample-table', { blob: true });
+    const upsample = decodeUpsampleTable(new Uint8Array(await blob.arrayBuffer()));
     const reflectances = nodeReflectances(upsample);
     post({ type: 'ready', ms: performance.now() - t0 });
     return { upsample, reflectances };
