@@ -31,6 +31,13 @@ export type LookDefinitionInput = z.input<typeof lookDefinitionSchema>;
 export const lookCreateSchema = lookDefinitionSchema.extend({ name, notes: z.string().max(4000).default('') });
 export type LookCreateInput = z.input<typeof lookCreateSchema>;
 
+/** A change to a look's tone settings: only the fields sent change; the rest keep their saved values. */
+export const toneSettingsPatchSchema = z.strictObject(
+  Object.fromEntries(
+    Object.entries(toneSettingsSchema.shape as Record<string, z.ZodType>).map(([k, v]) => [k, (v instanceof z.ZodDefault ? (v as z.ZodDefault<z.ZodType>).unwrap() : v).optional()]),
+  ),
+) as unknown as z.ZodType<Partial<ToneSettings>>;
+
 export const lookUpdateSchema = z
   .strictObject({
     name: name.optional(),
@@ -38,7 +45,7 @@ export const lookUpdateSchema = z
     light: lightRefSchema.optional(),
     filters: z.array(lookFilterSchema).max(MAX_LOOK_FILTERS, `At most ${MAX_LOOK_FILTERS} filters.`).optional(),
     medium: mediumRefSchema.optional(),
-    tone: toneSettingsSchema.optional(),
+    tone: toneSettingsPatchSchema.optional(),
   })
   .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change.' });
 export type LookUpdateInput = z.input<typeof lookUpdateSchema>;

@@ -86,6 +86,17 @@ describe('create, update, duplicate, delete', () => {
     expect(after).toBeGreaterThan(before + 1);
   });
 
+  it('a tone change keeps the tone fields it does not name', async () => {
+    const a = await editor.patch(`${base}/looks/${id}`).send({ tone: { developmentStops: -0.5, ratingStops: -0.667 } });
+    expect(a.status).toBe(200);
+    const b = await editor.patch(`${base}/looks/${id}`).send({ tone: { tStop: 4 } });
+    expect(b.status).toBe(200);
+    expect(b.body.look.tone).toMatchObject({ developmentStops: -0.5, ratingStops: -0.667, tStop: 4 });
+    const bad = await editor.patch(`${base}/looks/${id}`).send({ tone: { tStop: 'wide open' } });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.field).toBe('tone.tStop');
+  });
+
   it('a gel on the light costs light but leaves the lens clear', async () => {
     const r = await owner.post(`${base}/looks/analyse`).send({ look: { ...pan, filters: [{ filter: { source: { id: 'nd-0.3' } }, on: 'light' }] } });
     expect(r.status).toBe(200);

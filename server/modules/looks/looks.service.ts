@@ -1,3 +1,4 @@
+import { zodToInvalid } from '../../middleware/validate';
 import type { DataSource } from 'typeorm';
 import { Look } from '../../db/entities/look.entity';
 import type { Membership } from '../../db/entities/membership.entity';
@@ -73,8 +74,17 @@ export class LooksService {
   async update(m: Membership, id: number, input: UpdateInput) {
     return this.ds.transaction(async (t) => {
       const l = await this.entity(m.production.id, id, t);
-      for (const k of ['name', 'notes', 'light', 'filters', 'medium', 'tone'] as const) {
+      for (const k of ['name', 'notes', 'light', 'filters', 'medium'] as const) {
         if (input[k] !== undefined) (l as unknown as Record<string, unknown>)[k] = input[k];
+      }
+      if (input.tone !== undefined) {
+        // only the tone fields sent change; the merged whole is checked again
+        const merged = toneSettingsSchema.safeParse({ ...toneSettingsSchema.parse(l.tone ?? {}), ...input.tone });
+        if (!merged.success) {
+          const bad = zodToInvalid(merged.error);
+          throw new InvalidError(`tone.${bad.message}`, bad.field ? `tone.${bad.field}` : 'tone');
+        }
+        l.tone = merged.data;
       }
       await checkDefinition(t, m.production.id, l);
       return lookView(await t.save(l));
