@@ -2,26 +2,17 @@ import fs from 'node:fs';
 import path from 'node:path';
 import sharp, { type Metadata, type Sharp, type SharpOptions } from 'sharp';
 import { AppError, InvalidError } from '../../errors';
-import { MAX_PHOTO_PIXELS, PREVIEW_WIDTH, THUMB_SIZE, type PhotoFormat } from '../../../shared/schemas/photo';
+import { MAX_PHOTO_PIXELS, PREVIEW_WIDTH, THUMB_SIZE, type PhotoFormat, type PhotoView } from '../../../shared/schemas/photo';
 import { EXTENSIONS } from './photo-storage';
 import { iccDescription } from './icc-description';
 
 /** Tallest preview kept, px: a 2:3 portrait still gets a preview about 1700 px wide. */
 export const PREVIEW_MAX_HEIGHT = 2560;
 
-/** What the ingest learnt about an accepted image. */
-export interface IngestedPhoto {
-  format: PhotoFormat;
+/** What the ingest learnt about an accepted image: the file fields of a photo (size oriented, px). */
+export type IngestedPhoto = Pick<PhotoView, 'format' | 'width' | 'height' | 'previewWidth' | 'previewHeight' | 'fileBytes' | 'iccProfile' | 'orientation'> & {
   bitDepth: 8 | 16;
-  /** oriented size, px */
-  width: number;
-  height: number;
-  previewWidth: number;
-  previewHeight: number;
-  fileBytes: number;
-  iccProfile: string | null;
-  orientation: number;
-}
+};
 
 /** The magic numbers of the accepted formats (first bytes of the file). */
 export function sniffFormat(head: Uint8Array): PhotoFormat | null {
