@@ -1,6 +1,7 @@
 import type { RequestHandler, Router } from 'express';
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/require-role';
+import { NotFoundError } from '../errors';
 import type { Role } from '../../shared/schemas/roles';
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -37,4 +38,16 @@ export function handle(fn: (...a: Parameters<RequestHandler>) => Promise<unknown
   return (req, res, next) => {
     fn(req, res, next).catch(next);
   };
+}
+
+/** The production of a request that passed requireRole. */
+export function pid(req: { membership?: { production: { id: number } } }): number {
+  return req.membership!.production.id;
+}
+
+/** A positive integer id from a path parameter; anything else is a 404 for `what`. */
+export function idParam(v: unknown, what: string): number {
+  const n = Number(v);
+  if (!Number.isInteger(n) || n <= 0) throw new NotFoundError(what);
+  return n;
 }

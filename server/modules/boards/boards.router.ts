@@ -1,11 +1,10 @@
 import { Router } from 'express';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
-import { handle, productionRoute } from '../route-registry';
+import { handle, productionRoute, pid, idParam } from '../route-registry';
 import { boardCreateSchema, boardTonesQuerySchema, boardUpdateSchema } from '../../../shared/schemas/board';
 import { BoardsService } from './boards.service';
 import { ToneService } from './tone.service';
-import { idParam } from '../swatches/swatches.router';
 import { zodToInvalid } from '../../middleware/validate';
 
 /** Boards: viewers read; contributors create and edit their own department's; editors and owners any. */
@@ -13,7 +12,6 @@ export function boardsRouter(ctx: AppContext): Router {
   const r = Router();
   const svc = new BoardsService(ctx.ds);
   const tones = new ToneService(ctx.ds, ctx.env.dataDir);
-  const pid = (req: { membership?: { production: { id: number } } }) => req.membership!.production.id;
 
   productionRoute(r, ctx, 'get', '/boards', 'viewer', handle(async (req, res) => void res.json({ boards: await svc.list(pid(req)) })));
   productionRoute(r, ctx, 'post', '/boards', 'contributor', validate(boardCreateSchema), handle(async (req, res) => {

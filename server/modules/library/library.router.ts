@@ -1,16 +1,14 @@
 import { Router } from 'express';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
-import { handle, productionRoute } from '../route-registry';
+import { handle, productionRoute, pid, idParam } from '../route-registry';
 import { curveCreateSchema, curveUpdateSchema } from '../../../shared/schemas/curve';
-import { idParam } from '../swatches/swatches.router';
 import { LibraryService } from './library.service';
 
 /** The production's own library of curves: viewers read; editors and owners add, rename and delete. */
 export function libraryRouter(ctx: AppContext): Router {
   const r = Router();
   const svc = new LibraryService(ctx.ds);
-  const pid = (req: { membership?: { production: { id: number } } }) => req.membership!.production.id;
 
   productionRoute(r, ctx, 'get', '/curves', 'viewer', handle(async (req, res) => void res.json({ curves: await svc.list(pid(req)) })));
   productionRoute(r, ctx, 'post', '/curves', 'editor', validate(curveCreateSchema), handle(async (req, res) => {

@@ -1,16 +1,14 @@
 import { Router } from 'express';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
-import { handle, productionRoute } from '../route-registry';
+import { handle, productionRoute, pid, idParam } from '../route-registry';
 import { lookAnalyseSchema, lookCreateSchema, lookDuplicateSchema, lookUpdateSchema } from '../../../shared/schemas/look';
-import { idParam } from '../swatches/swatches.router';
 import { LooksService } from './looks.service';
 
 /** Looks: viewers read and analyse; editors and owners create, change, duplicate and delete. */
 export function looksRouter(ctx: AppContext): Router {
   const r = Router();
   const svc = new LooksService(ctx.ds, ctx.env.dataDir);
-  const pid = (req: { membership?: { production: { id: number } } }) => req.membership!.production.id;
 
   productionRoute(r, ctx, 'get', '/looks', 'viewer', handle(async (req, res) => void res.json({ looks: await svc.list(pid(req)) })));
   productionRoute(r, ctx, 'post', '/looks', 'editor', validate(lookCreateSchema), handle(async (req, res) => {

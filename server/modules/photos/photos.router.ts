@@ -4,8 +4,7 @@ import crypto from 'node:crypto';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
 import { AppError, InvalidError } from '../../errors';
-import { handle, productionRoute } from '../route-registry';
-import { idParam } from '../swatches/swatches.router';
+import { handle, productionRoute, pid, idParam } from '../route-registry';
 import { photoLookRequestSchema, photoUpdateSchema, photoUploadFieldsSchema, renderRequestSchema } from '../../../shared/schemas/photo';
 import { PhotosService } from './photos.service';
 
@@ -48,7 +47,6 @@ function uploadOne(svc: PhotosService): RequestHandler {
 export function photosRouter(ctx: AppContext): Router {
   const r = Router();
   const svc = photosService(ctx);
-  const pid = (req: { membership?: { production: { id: number } } }) => req.membership!.production.id;
   const photoId = (req: { params: object }) => idParam((req.params as Record<string, string>).photoId, 'Photo');
 
   productionRoute(r, ctx, 'get', '/photos', 'viewer', handle(async (req, res) => void res.json({ photos: await svc.list(pid(req)) })));

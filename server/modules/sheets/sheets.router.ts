@@ -1,7 +1,6 @@
 import { Router } from 'express';
 import type { AppContext } from '../../context';
-import { handle, productionRoute } from '../route-registry';
-import { idParam } from '../swatches/swatches.router';
+import { handle, productionRoute, pid, idParam } from '../route-registry';
 import { SheetsService } from './sheets.service';
 import { renderSheetPdf } from './sheet-pdf';
 
@@ -15,7 +14,6 @@ function fileName(look: string): string {
 export function sheetsRouter(ctx: AppContext): Router {
   const r = Router();
   const svc = new SheetsService(ctx.ds, ctx.env.dataDir);
-  const pid = (req: { membership?: { production: { id: number } } }) => req.membership!.production.id;
 
   productionRoute(r, ctx, 'get', '/looks/:lookId/sheet', 'viewer', handle(async (req, res) => {
     res.json({ sheet: await svc.sheet(pid(req), idParam(req.params.lookId, 'Look')) });

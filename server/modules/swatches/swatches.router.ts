@@ -1,25 +1,17 @@
 import { Router } from 'express';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
-import { NotFoundError } from '../../errors';
-import { handle, productionRoute } from '../route-registry';
+import { handle, productionRoute, pid, idParam } from '../route-registry';
 import { departmentSchema } from '../../../shared/schemas/roles';
 import { swatchCreateSchema, swatchUpdateSchema } from '../../../shared/schemas/swatch';
 import { SwatchesService } from './swatches.service';
 import { ToneService } from '../boards/tone.service';
-
-export function idParam(v: unknown, what: string): number {
-  const n = Number(v);
-  if (!Number.isInteger(n) || n <= 0) throw new NotFoundError(what);
-  return n;
-}
 
 /** Swatches: viewers read; contributors add and edit their own department's; editors and owners any. */
 export function swatchesRouter(ctx: AppContext): Router {
   const r = Router();
   const svc = new SwatchesService(ctx.ds, ctx.env.dataDir);
   const tones = new ToneService(ctx.ds, ctx.env.dataDir);
-  const pid = (req: { membership?: { production: { id: number } } }) => req.membership!.production.id;
 
   productionRoute(r, ctx, 'get', '/swatches', 'viewer', handle(async (req, res) => {
     const d = departmentSchema.safeParse(req.query.department);

@@ -2,23 +2,16 @@ import { Router } from 'express';
 import rateLimit from 'express-rate-limit';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
-import { AppError, NotFoundError } from '../../errors';
+import { AppError } from '../../errors';
 import { acceptInvitationSchema, invitationCreateSchema, membershipUpdateSchema } from '../../../shared/schemas/auth';
-import { handle, productionRoute } from '../route-registry';
+import { handle, productionRoute, pid, idParam } from '../route-registry';
 import { TeamService } from './team.service';
 import { logIn } from '../auth/auth.router';
 import { publicUser } from '../auth/auth.service';
 
-function idParam(v: unknown, what: string): number {
-  const n = Number(v);
-  if (!Number.isInteger(n) || n <= 0) throw new NotFoundError(what);
-  return n;
-}
-
 export function teamRouter(ctx: AppContext): Router {
   const r = Router();
   const svc = new TeamService(ctx.ds, ctx.mail, ctx.env.publicUrl);
-  const pid = (req: { membership?: { production: { id: number } } }) => req.membership!.production.id;
 
   productionRoute(r, ctx, 'get', '/members', 'viewer', handle(async (req, res) => void res.json({ members: await svc.members(pid(req)) })));
   productionRoute(
