@@ -14,7 +14,7 @@ import { Look } from '../server/db/entities/look.entity';
 import { Swatch } from '../server/db/entities/swatch.entity';
 import { Board } from '../server/db/entities/board.entity';
 import { DEMO_PASSWORD, DEMO_PRODUCTION_NAME } from '../server/db/seed';
-import { ToneService } from '../server/modules/boards/tone.service';
+import { ToneService } from '../server/modules/tones/tone.service';
 import { resolveSwatchOrigin } from '../server/modules/swatches/swatches.service';
 import { getUpsampleTable } from '../server/services/upsample-table';
 import { medianMs } from './lib';

@@ -1,10 +1,15 @@
 /**
- * Spectral engine figures (medians): one 33³ tone LUT for a stack, and 1,000 colour swatches through
+ * Spectral engine figures (medians): the 33³ photo table of a look as the live preview builds it (the
+ * look composed, the exposure of every node of the estimate's table, then 33³ nodes of stops), and
+ * 1,000 colour swatches through
  * one stack (resolve: table lookup + Gauss–Newton refinement; then XYZ, L*a*b*, tones). Also the
  * one-off build of the upsampling table, which the server does once and caches.
  */
-import { resolveStack, resolveSwatch, simulateSwatches } from '../shared/spectral/compute';
-import { buildToneLut } from '../shared/spectral/lut';
+import { resolveFilter, resolveLight, resolveMedium, resolveStack, resolveSwatch, simulateSwatches } from '../shared/spectral/compute';
+import { composeLook } from '../shared/look/compose-look';
+import { buildPhotoLut, photoToneModel } from '../shared/photo/look-photo-model';
+import { PREVIEW_LUT_SIZE } from '../shared/photo/exposure-lut';
+import { nodeReflectances } from '../shared/spectral/node-spectra';
 import { buildUpsampleTable } from '../shared/spectral/upsample-table';
 import { random } from '../tests/unit/spectral/fixtures';
 import { medianMs } from './lib';
@@ -14,7 +19,16 @@ export default async function run(record: (name: string, value: number, unit: st
   record('upsample_table_build_ms', await medianMs(() => (table = buildUpsampleTable()), 3), 'ms');
 
   const stack = resolveStack({ light: { id: 'tungsten-3200' }, filters: [{ id: 'cyan-530' }], medium: { id: 'panchromatic' } });
-  record('lut_build_ms', await medianMs(() => buildToneLut(stack, table, 33), 9), 'ms');
+  const spectra = {
+    bareLight: resolveLight({ id: 'tungsten-3200' }),
+    filters: [{ spectrum: resolveFilter({ id: 'cyan-530' }), on: 'lens' as const }],
+    medium: resolveMedium({ id: 'panchromatic' }),
+    mediumToneId: 'medium.panchromatic',
+    tone: { developmentStops: 0, ratingStops: 0, printGrade: 2, printExposureStops: 0, shadowDetailStops: null, highlightRollOffStops: null, keyZone: 5 },
+    key: null,
+  };
+  nodeReflectances(table); // once per table, as the server and the preview worker do on load
+  record('lut_build_ms', await medianMs(() => buildPhotoLut(photoToneModel(composeLook(spectra), table), PREVIEW_LUT_SIZE), 9), 'ms');
 
   const rnd = random(1000);
   const hex = () => '#' + Math.floor(rnd() * 0x1000000).toString(16).padStart(6, '0');

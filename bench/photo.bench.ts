@@ -22,8 +22,9 @@ import { fileURLToPath } from 'node:url';
 import { DEMO_SCENES, demoSceneJpeg } from '../server/db/seed-content/photos';
 import { RENDER_JPEG, RENDER_PNG, buildRenderTable, renderPhoto } from '../server/services/photo-render';
 import { getUpsampleTable } from '../server/services/upsample-table';
-import { nodeReflectances } from '../shared/photo/node-reflectances';
-import { photoLook, type PhotoLookSpectra } from '../shared/photo/compose-look';
+import { nodeReflectances } from '../shared/spectral/node-spectra';
+import { composeLook, type LookSpectra } from '../shared/look/compose-look';
+import { photoToneModel } from '../shared/photo/look-photo-model';
 import { resolveFilter, resolveLight, resolveMedium } from '../shared/spectral/compute';
 import type { UpsampleTable } from '../shared/spectral/upsample-table';
 
@@ -34,7 +35,7 @@ const CHILD_FLAG = '--photo-bench-child';
 const WORK = path.join(os.tmpdir(), 'grisaille-photo-bench');
 
 /** The look of the benchmark (the demo "Panchromatic + red-absorbing cyan"). */
-function benchLook(): PhotoLookSpectra {
+function benchLook(): LookSpectra {
   return {
     bareLight: resolveLight({ id: 'tungsten-3200' }),
     filters: [{ spectrum: resolveFilter({ id: 'cyan-530' }), on: 'lens' }],
@@ -57,7 +58,7 @@ function render(file: string, format: 'jpeg' | 'png16', t: { upsample: UpsampleT
     bitDepth: 8,
     hasProfile: false,
     format,
-    table: (inputBits, outputBits) => buildRenderTable(photoLook(benchLook(), t.upsample, t.reflectances).model, inputBits, outputBits),
+    table: (inputBits, outputBits) => buildRenderTable(photoToneModel(composeLook(benchLook()), t.upsample), inputBits, outputBits),
   });
 }
 
@@ -112,7 +113,7 @@ export default async function run(record: (name: string, value: number, unit: st
   record('greyscale_bw_24mp_ms', median(bw), 'ms');
   record('render_ratio_bw', median(ratioBw), 'x');
   // the same look again: its table comes from the server's cache
-  const cached = await buildRenderTable(photoLook(benchLook(), t.upsample, t.reflectances).model, 8, 8);
+  const cached = await buildRenderTable(photoToneModel(composeLook(benchLook()), t.upsample), 8, 8);
   const warm: number[] = [];
   for (let i = 0; i < 3; i++) warm.push(await time(() => renderPhoto({ input: file, bitDepth: 8, hasProfile: false, format: 'jpeg', table: () => cached })));
   record('render_24mp_cached_table_ms', median(warm), 'ms');

@@ -2,7 +2,8 @@ import type { RequestHandler } from 'express';
 import type { AppContext } from '../context';
 import { Membership } from '../db/entities/membership.entity';
 import { ForbiddenError, NotFoundError, UnauthenticatedError } from '../errors';
-import { roleAtLeast, type Role } from '../../shared/schemas/roles';
+import type { Role } from '../../shared/schemas/roles';
+import { roleAtLeast } from '../../shared/policy/department';
 
 /** 401 without a session. */
 export const requireAuth: RequestHandler = (req, _res, next) => {

@@ -1,4 +1,7 @@
 import type { RequestHandler, Router } from 'express';
+import type { ZodType } from 'zod';
+import type { Membership } from '../db/entities/membership.entity';
+import { validate } from '../middleware/validate';
 import type { AppContext } from '../context';
 import { requireRole } from '../middleware/require-role';
 import { NotFoundError } from '../errors';
@@ -50,4 +53,35 @@ export function idParam(v: unknown, what: string): number {
   const n = Number(v);
   if (!Number.isInteger(n) || n <= 0) throw new NotFoundError(what);
   return n;
+}
+
+/** A production item's service as `itemRoutes` drives it. */
+export interface ItemService<V> {
+  get(productionId: number, id: number): Promise<V>;
+  update(m: Membership, id: number, input: never): Promise<V>;
+  remove(m: Membership, id: number): Promise<void>;
+}
+
+/**
+ * The three routes every production item has, under `/<plural>/:<param>`: GET (answers `{ [key]: view }`,
+ * for `read`), PATCH checked by `updateSchema` and DELETE (204), both for `write`; a bad id is a 404 for `what`.
+ */
+export function itemRoutes<V>(
+  r: Router,
+  ctx: AppContext,
+  spec: { plural: string; param: string; key: string; what: string; read: Role; write: Role; updateSchema: ZodType },
+  svc: ItemService<V>,
+): void {
+  const path = `/${spec.plural}/:${spec.param}`;
+  const id = (req: { params: Record<string, string | string[] | undefined> }) => idParam(req.params[spec.param], spec.what);
+  productionRoute(r, ctx, 'get', path, spec.read, handle(async (req, res) => {
+    res.json({ [spec.key]: await svc.get(pid(req), id(req)) });
+  }));
+  productionRoute(r, ctx, 'patch', path, spec.write, validate(spec.updateSchema), handle(async (req, res) => {
+    res.json({ [spec.key]: await svc.update(req.membership!, id(req), req.body as never) });
+  }));
+  productionRoute(r, ctx, 'delete', path, spec.write, handle(async (req, res) => {
+    await svc.remove(req.membership!, id(req));
+    res.status(204).end();
+  }));
 }

@@ -16,7 +16,7 @@ import { buildPhotoLut, type PhotoToneModel } from '../../shared/photo/look-phot
 import { RENDER_LUT_SIZE } from '../../shared/photo/exposure-lut';
 import type { RenderFormat } from '../../shared/schemas/photo';
 import { MAX_PHOTO_PIXELS } from '../../shared/schemas/photo';
-import { srgbReader } from '../modules/photos/photo-ingest';
+import { srgbReader } from './srgb-reader';
 import { PARALLEL_MIN_PIXELS, passPool } from './photo-pass-pool';
 
 /** JPEG settings of renders (the benchmark's greyscale baseline uses the same). */
@@ -94,11 +94,19 @@ function greyBuffer(n: number, bits: OutputBits): Uint8Array | Uint16Array {
   return grey;
 }
 
-/** Renders a photo through a look's table at full resolution. */
-export async function renderPhoto(req: RenderRequest): Promise<RenderResult> {
+/** The grey codes of a photo through a look, before encoding. */
+export interface GreyResult {
+  grey: Uint8Array | Uint16Array;
+  width: number;
+  height: number;
+  /** ms by step; decode and table overlap */
+  ms: { decode: number; table: number; pass: number };
+}
+
+/** Decodes a photo and applies a look's table at full resolution: one grey code a pixel, `outBits` deep. */
+export async function renderGrey(req: Omit<RenderRequest, 'format'>, outBits: OutputBits): Promise<GreyResult> {
   const t0 = performance.now();
   const report = req.onProgress ?? (() => {});
-  const outBits: OutputBits = req.format === 'jpeg' ? 8 : 16;
   report({ stage: 'decoding', progress: 0 });
   const decoding = decodeSrgb(req.input, req.bitDepth, req.hasProfile, req.maxPixels).then((d) => ({ ...d, at: performance.now() }));
   decoding.catch(() => {});
@@ -135,15 +143,22 @@ export async function renderPhoto(req: RenderRequest): Promise<RenderResult> {
   };
   await pass(0, split, split / n);
   if (!(await other)) await pass(split, n, 1);
+  return { grey, width: info.width, height: info.height, ms: { decode: decodedAt - t0, table: tableMs, pass: performance.now() - tPass } };
+}
+
+/** Renders a photo through a look's table at full resolution and encodes it. */
+export async function renderPhoto(req: RenderRequest): Promise<RenderResult> {
+  const t0 = performance.now();
+  const { grey, width, height, ms } = await renderGrey(req, req.format === 'jpeg' ? 8 : 16);
   const tEncode = performance.now();
-  report({ stage: 'encoding', progress: 0.6 });
-  const out = await encodeGrey(grey, info.width, info.height, req.format);
+  req.onProgress?.({ stage: 'encoding', progress: 0.6 });
+  const out = await encodeGrey(grey, width, height, req.format);
   const t1 = performance.now();
   return {
     data: out,
-    width: info.width,
-    height: info.height,
+    width,
+    height,
     mime: req.format === 'jpeg' ? 'image/jpeg' : 'image/png',
-    ms: { decode: decodedAt - t0, table: tableMs, pass: tEncode - tPass, encode: t1 - tEncode, total: t1 - t0 },
+    ms: { ...ms, encode: t1 - tEncode, total: t1 - t0 },
   };
 }

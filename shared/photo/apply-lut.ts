@@ -12,27 +12,12 @@
  * Output: grey codes, 0..255 (8-bit) or 0..65535 (16-bit), one channel.
  */
 import type { ExposureLut } from './exposure-lut';
-import { greyOfStops, TONE_TABLE_STOPS, type ToneCurveTable } from './tone-curve-table';
+import { MAX_Q, MIN_STOPS, STOPS_Q, outputCodes, type OutputBits, type ToneCurveTable } from '../look/tone-curve-table';
 
-/** Fixed-point steps per stop inside the renderer (a tone 1/2048 stop apart moves the grey < 0.02/255). */
-export const STOPS_Q = 2048;
-/** Stops of fixed-point 0. */
-export const MIN_STOPS = TONE_TABLE_STOPS[0];
-/** Largest fixed-point value (the top of the tone table). */
-export const MAX_Q = (TONE_TABLE_STOPS[1] - TONE_TABLE_STOPS[0]) * STOPS_Q;
+export { STOPS_Q, type OutputBits } from '../look/tone-curve-table';
 
-export type OutputBits = 8 | 16;
 /** Grey codes out, one per pixel. */
 export type GreyBuffer = Uint8Array | Uint8ClampedArray | Uint16Array;
-
-/** Fixed-point stops → output code (0..255 or 0..65535), MAX_Q + 1 entries. */
-export function outputCodes(tone: ToneCurveTable, bits: OutputBits): Uint8Array | Uint16Array {
-  const n = MAX_Q + 1;
-  const top = bits === 8 ? 255 : 65535;
-  const out = bits === 8 ? new Uint8Array(n) : new Uint16Array(n);
-  for (let i = 0; i < n; i++) out[i] = Math.round(greyOfStops(tone, MIN_STOPS + i / STOPS_Q) * top);
-  return out;
-}
 
 /** A plan for 8-bit pixels (see the header). */
 export interface LutPlan8 {

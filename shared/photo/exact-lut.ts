@@ -3,7 +3,8 @@
  * r << 16 | g << 8 | b, each computed the first time a pixel of that colour is met, by the engine's
  * per-pixel computation itself (look-photo-model.ts `pixelStops`: the colour's cell in the upsampling
  * table, the trilinear blend of the node exposures, log2 from middle grey, floored), then the tone
- * curve through the fixed point of apply-lut.ts (1/STOPS_Q stop, < 0.02/255 of grey).
+ * curve through the look's output codes (shared/look/tone-curve-table.ts `codeOfStops`: 1/STOPS_Q stop,
+ * < 0.02/255 of grey), the same rounding a swatch's grey goes through.
  * So no 3-D table of nodes stands between a pixel and the engine (no interpolation error anywhere
  * in the cube, black and saturated edges included), and only the colours the photo holds are
  * computed (the 24-megapixel benchmark still life holds about 40,000 of 16.8 million).
@@ -15,7 +16,8 @@
  */
 import { FLOOR_STOPS, MIDDLE_GREY } from '../spectral/limits';
 import { srgbDecode } from '../tone/print';
-import { MAX_Q, MIN_STOPS, outputCodes, STOPS_Q, type GreyBuffer, type OutputBits } from './apply-lut';
+import { MAX_Q, MIN_STOPS, STOPS_Q, type OutputBits } from '../look/tone-curve-table';
+import type { GreyBuffer } from './apply-lut';
 import type { PhotoToneModel } from './look-photo-model';
 
 /** What the lazy exact table needs (typed arrays may live in shared memory). */
@@ -30,7 +32,7 @@ export interface ExactLut {
   resolution: number;
   zNodes: Float32Array;
   nodeM: Float64Array;
-  /** fixed-point stops → output code (apply-lut.ts outputCodes) */
+  /** fixed-point stops → output code (the look's codes, tone-curve-table.ts outputCodes) */
   out: Uint8Array | Uint16Array;
   minStops: number;
   q: number;
@@ -51,7 +53,7 @@ export function exactLut(codes: Uint16Array | Uint32Array, model: PhotoToneModel
     resolution: model.upsample.resolution,
     zNodes: model.upsample.zNodes,
     nodeM: model.nodeM,
-    out: outputCodes(model.tone, bits),
+    out: model.codes(bits),
     minStops: MIN_STOPS,
     q: STOPS_Q,
     maxQ: MAX_Q,

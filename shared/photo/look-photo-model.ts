@@ -1,36 +1,34 @@
 /**
- * A look made ready for photos, composed from the engine (no spectral or tone math of its own):
- * - a pixel's medium exposure m is the engine's per-pixel computation (shared/spectral/lut.ts): the
- *   colour's reflectance is the trilinear blend of the upsampling table's corner spectra, so m is the
- *   same blend of the table nodes' exposures (`nodeExposures`, `locateCell`, `interpolateAtCell`);
- * - its tone is the look's tone pipeline, tabulated (tone-curve-table.ts).
+ * A composed look (shared/look/compose-look.ts) made ready for photos, with no spectral or tone math of
+ * its own:
+ * - a pixel's medium exposure m is the engine's estimate of its colour (shared/spectral/node-spectra.ts:
+ *   the trilinear blend of the upsampling table's node spectra), so m is the same blend of the nodes'
+ *   exposures (`nodeExposures`, `locateCell`, `interpolateAtCell`) — the number a swatch of that colour
+ *   gets on a board;
+ * - its tone is the look's tabulated tone curve and output codes.
  * `buildPhotoLut` turns it into the 3-D table (exposure-lut.ts) the renderers apply.
  */
-import { nodeExposures } from '../spectral/lut';
-import type { Stack } from '../spectral/compute';
+import type { ComposedLook } from '../look/compose-look';
+import { greyOfStops, type ToneCurveTable } from '../look/tone-curve-table';
+import { nodeExposures, nodeReflectances } from '../spectral/node-spectra';
 import { interpolateAtCell, locateCell, type TableCell, type UpsampleTable } from '../spectral/upsample-table';
 import { FLOOR_STOPS, MIDDLE_GREY } from '../spectral/limits';
-import type { TonePipeline } from '../tone/tone-pipeline';
 import { srgbDecode } from '../tone/print';
 import { buildExposureLut, type ExposureLut } from './exposure-lut';
-import { nodeExposuresFrom } from './node-reflectances';
-import { greyOfStops, toneCurveTable, type ToneCurveTable } from './tone-curve-table';
 
 /** Everything needed to tone a pixel through one look. */
 export interface PhotoToneModel {
   readonly upsample: UpsampleTable;
-  /** m at every node of the upsampling table for the look's stack (linear, 0.18 = middle grey) */
+  /** m at every node of the upsampling table for the look's light path (linear, 0.18 = middle grey) */
   readonly nodeM: Float64Array;
   readonly tone: ToneCurveTable;
+  /** the look's output codes by fixed-point stops (ComposedLook.codes) */
+  readonly codes: ComposedLook['codes'];
 }
 
-/**
- * Prepares a look for photos: the stack's node exposures and its tabulated tone curve. Pass the
- * table's node reflectances (node-reflectances.ts) when several looks are prepared: same numbers, faster.
- */
-export function photoToneModel(stack: Stack, pipeline: TonePipeline, upsample: UpsampleTable, reflectances?: Float32Array): PhotoToneModel {
-  const nodeM = reflectances ? nodeExposuresFrom(reflectances, stack) : nodeExposures(stack, upsample);
-  return { upsample, nodeM, tone: toneCurveTable(pipeline) };
+/** Prepares a composed look for photos: its light path's exposure at every node of the estimate's table, and its tone. */
+export function photoToneModel(look: ComposedLook, upsample: UpsampleTable): PhotoToneModel {
+  return { upsample, nodeM: nodeExposures(nodeReflectances(upsample), look.path.mediumWeights), tone: look.toneTable, codes: look.codes };
 }
 
 const cell: TableCell = { node: 0, fx: 0, fy: 0, fz: 0 };

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { FILTER_BASES, MEDIUM_BASES } from '../spectral/bases';
 import { filterSourceSchema, lightSourceSchema, mediumSourceSchema } from './simulate';
 import { tableInputSchema } from './swatch';
+import { itemNameSchema, type ItemView } from './item';
 
 /** What a production curve is. */
 export const CURVE_KINDS = ['light', 'filter', 'medium'] as const;
@@ -64,7 +65,7 @@ export type CurveOrigin =
   | { type: 'parametric'; filter: z.infer<typeof filterSourceSchema> }
   | { type: 'gel'; light: LightRef; gels: FilterRef[] };
 
-const name = z.string().trim().min(1, 'Give it a name.').max(120, 'At most 120 characters.');
+const name = itemNameSchema;
 
 export const curveCreateSchema = z
   .strictObject({ kind: curveKindSchema, name, notes: z.string().max(4000).default(''), origin: curveOriginInputSchema })
@@ -83,11 +84,8 @@ export const curveUpdateSchema = z
   .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change.' });
 export type CurveUpdateInput = z.input<typeof curveUpdateSchema>;
 
-export interface CurveView {
-  id: number;
+export interface CurveView extends ItemView {
   kind: CurveKind;
-  name: string;
-  notes: string;
   origin: CurveOrigin;
   /** the curve on the working grid in the engine's basis: transmittance 0..1, relative power or relative energy sensitivity (peak 1) */
   samples: [number, number][];
@@ -95,7 +93,4 @@ export interface CurveView {
   source: string;
   /** how many looks use it */
   usedBy: number;
-  createdBy: { id: number; name: string } | null;
-  createdAt: string;
-  updatedAt: string;
 }

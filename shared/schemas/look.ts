@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { toneSettingsSchema, type ToneSettings } from './exposure';
-import { filterRefSchema, lightRefSchema, mediumRefSchema, type FilterRef, type LightRef, type MediumRef } from './curve';
+import { filterRefSchema, lightRefSchema, mediumRefSchema, type LightRef, type MediumRef } from './curve';
 
 /** Where a filter of a look sits: on the lens (the camera sees through it) or on the light (a gel on the lamps). */
 export const FILTER_PLACES = ['lens', 'light'] as const;

@@ -9,7 +9,3 @@ export const DEPARTMENTS = ['camera', 'lighting', 'makeup', 'costume', 'art', 'p
 export type Department = (typeof DEPARTMENTS)[number];
 export const departmentSchema = z.enum(DEPARTMENTS);
 
-/** true when `have` is at least `need` */
-export function roleAtLeast(have: Role, need: Role): boolean {
-  return ROLES.indexOf(have) >= ROLES.indexOf(need);
-}

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { itemNameSchema, type ItemView } from './item';
 import { departmentSchema, type Department } from './roles';
 
 /** Largest text of a measured-reflectance file accepted, characters. */
@@ -6,7 +7,8 @@ export const MAX_TABLE_CHARS = 500_000;
 /** At most this many `[nm, value]` pairs given directly. */
 export const MAX_TABLE_PAIRS = 4000;
 
-const name = z.string().trim().min(1, 'Give it a name.').max(120, 'At most 120 characters.');
+/** The name of a production item (swatch, curve, …). */
+const name = itemNameSchema;
 const notes = z.string().max(4000, 'At most 4000 characters.');
 const pair = z.tuple([z.number(), z.number()]);
 export const pairsSchema = z.array(pair).min(3, 'At least 3 points.').max(MAX_TABLE_PAIRS, `At most ${MAX_TABLE_PAIRS} points.`);
@@ -75,11 +77,8 @@ export const swatchUpdateSchema = z
 export type SwatchUpdateInput = z.input<typeof swatchUpdateSchema>;
 
 /** A swatch as the API answers it. */
-export interface SwatchView {
-  id: number;
-  name: string;
+export interface SwatchView extends ItemView {
   department: Department;
-  notes: string;
   origin: SwatchOrigin;
   /** its colour to the eye, sRGB */
   hex: string;
@@ -87,7 +86,4 @@ export interface SwatchView {
   spectrum: 'measured' | 'estimated';
   /** the reflectance on the grid ([nm, 0..1]); measured, or the estimate */
   reflectance?: [number, number][];
-  createdBy: { id: number; name: string } | null;
-  createdAt: string;
-  updatedAt: string;
 }

@@ -6,7 +6,8 @@
  * (logarithmic) scale, as data sheets draw them.
  */
 import { GRID_NM } from './grid';
-import { makeSpectrum, normalisePeak, spectrumFromPairs, type Spectrum } from './spectrum';
+import { makeSpectrum, normalisePeak, spectrumFromPairs } from './spectrum';
+import type { Spectrum } from './types';
 
 /** How a filter's values are given: transmittance 0..1, transmittance in percent, or optical density (T = 10^−D). */
 export type FilterBasis = 'transmittance' | 'percent' | 'density';

@@ -11,7 +11,8 @@ import illuminantF2Json from '../../data/cie/illuminant-f2.json';
 import illuminantF7Json from '../../data/cie/illuminant-f7.json';
 import illuminantF11Json from '../../data/cie/illuminant-f11.json';
 import daylightJson from '../../data/cie/daylight-components.json';
-import { makeSpectrum, resample, type Spectrum } from './spectrum';
+import { makeSpectrum, resample } from './spectrum';
+import type { Spectrum } from './types';
 
 const values = z.array(z.number()).min(3);
 const header = { name: z.string().min(1), source: z.string().min(1), units: z.string().min(1), startNm: z.number(), stepNm: z.number().positive(), note: z.string().optional() };

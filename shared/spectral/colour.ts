@@ -4,7 +4,9 @@
  */
 import { converter, modeLab, modeLab65, modeLrgb, modeRgb, modeXyz65, parse, useMode, type Lab65, type Lrgb, type Rgb, type Xyz65 } from 'culori/fn';
 import { SpectralInputError } from './errors';
-import type { Xyz } from './integrate';
+import type { Lab3, Rgb3, Xyz } from './types';
+
+export type { Lab3, Rgb3 } from './types';
 
 useMode(modeRgb);
 useMode(modeLrgb);
@@ -16,11 +18,6 @@ const toLrgb = converter('lrgb');
 const toRgb = converter('rgb');
 const toXyz65 = converter('xyz65');
 const toLab65 = converter('lab65');
-
-/** An RGB triple, each 0..1 (encoded sRGB or linear, as the name says). */
-export type Rgb3 = [number, number, number];
-/** CIE 1976 L*, a*, b*. */
-export type Lab3 = [number, number, number];
 
 /** culori's D65 white (x 0.3127, y 0.3290), XYZ 0..100: the white of the sRGB working space. */
 export const SRGB_WHITE: Xyz = (() => {
@@ -40,6 +37,21 @@ export function hexToSrgb(hex: string): Rgb3 {
 /** Encoded sRGB 0..1 → '#rrggbb' (rounded, clamped). */
 export function srgbToHex(rgb: Rgb3): string {
   return '#' + rgb.map((v) => Math.round(Math.min(1, Math.max(0, v)) * 255).toString(16).padStart(2, '0')).join('');
+}
+
+/**
+ * IEC 61966-2-1 sRGB encoding of one channel: a linear value or relative luminance 0..1 (clamped) →
+ * encoded value 0..1. The one sRGB transfer function of Grisaille (culori's, as in linearToSrgb).
+ */
+export function srgbEncode(linear: number): number {
+  const v = Math.min(1, Math.max(0, linear));
+  return toRgb({ mode: 'lrgb', r: v, g: v, b: v } as Lrgb).r;
+}
+
+/** IEC 61966-2-1 sRGB decoding of one channel: encoded value 0..1 (clamped) → linear value 0..1 (culori's, as in srgbToLinear). */
+export function srgbDecode(encoded: number): number {
+  const e = Math.min(1, Math.max(0, encoded));
+  return toLrgb({ mode: 'rgb', r: e, g: e, b: e }).r;
 }
 
 /** Encoded sRGB 0..1 → linear sRGB 0..1 (IEC 61966-2-1 transfer function, by culori). */

@@ -1,7 +1,7 @@
 /**
  * The computation of DESIGN.md §3, and the engine's entry points for other features.
  *
- *   resolveLight(src) / resolveFilter(src) / resolveMedium(src)   schema-validated sources → spectra
+ *   resolveLight(src) / resolveFilter(src) / resolveMedium(src)   sources (sources.ts) → spectra
  *   resolveStack({ light, filters, medium })                       sources → a prepared Stack
  *   prepareStack({ light, filters, medium })                       spectra → a prepared Stack
  *   resolveSwatch(src, table)                                      swatch source → { name, reflectance, estimated }
@@ -9,8 +9,6 @@
  *   simulateSwatches(stack, swatches)                              → { filterFactor, filterStops, opaque, white, swatches[] }
  *   simulate(request, table)                                       POST /api/simulate in one call
  *   reflectanceFromSrgb(hexOrRgb, table)                           (estimate.ts) estimated reflectance of a colour
- *   buildToneLut(stack, table, size = 33)                          (lut.ts) Float32Array of m over linear sRGB,
- *                                                                  index ((ri·size)+gi)·size+bi, node i = i/(size−1)
  *
  * Model, for a surface ρ, light E, filters T = ΠTᵢ, medium S (all on the 380–780 nm grid):
  *   XYZ: CIE 1931 2° under E, Y = 100 for the perfect white; L*a*b* against that white (the eye sees
@@ -20,32 +18,76 @@
  *   integrals by the rule of policy.ts, reduced to 81 weights per stack (integrate.ts);
  *   stops = log2(m / 0.18); eyeStops = log2((Y/100) / 0.18); shift = stops − eyeStops;
  *   zone = 5 + stops, clamped to 0..10 (continuous; round it for the Roman numeral).
+ *   There is no key placement here: stops and zone are as metered, before any key is placed
+ *   (shared/tone/zones.ts keyOffsetStops moves them).
  * Logs are floored at 20 stops below middle grey (limits.ts) so black stays finite.
  */
-import type { FilterSource, LightSource, MediumSource, SimulateRequest, SimulateResponse, SwatchResultView, SwatchSource } from '../schemas/simulate';
 import { filterFromPairs, lightFromPairs, mediumFromPairs, reflectanceFromPairs } from './bases';
 import { xyzToLab } from './colour';
 import { SpectralInputError, within } from './errors';
 import { reflectanceFromLab, reflectanceFromSrgb } from './estimate';
 import { bandPass, longPass, neutralDensity, notch, shortPass, stackFilters } from './filters';
-import { integrationWeights, observerWeights, tristimulusWeights, type Xyz } from './integrate';
+import { integrationWeights, observerWeights, tristimulusWeights } from './integrate';
 import { kindOfId, libraryFilter, libraryLight, libraryMedium } from './library';
 import { blackbody, cieIlluminant, daylight, lightThroughGel, whiteLed } from './lights';
 import { FLOOR_STOPS, MAX_FILTER_STOPS, MIDDLE_GREY, OPAQUE_LIMIT_STOPS } from './limits';
 import { eyeMedium, mediumFromModel } from './media';
 import { GRID_SIZE } from './policy';
-import { constantSpectrum, multiply, onGrid, type Spectrum } from './spectrum';
+import type { FilterSource, LightSource, MediumSource, SwatchSource } from './sources';
+import { constantSpectrum, multiply, onGrid } from './spectrum';
+import type { Spectrum, Xyz } from './types';
 import type { UpsampleTable } from './upsample-table';
 
 export { reflectanceFromSrgb } from './estimate';
-export { buildToneLut } from './lut';
+
+/** One swatch of a simulation (the JSON of POST /api/simulate, `SwatchResultView` in shared/schemas/simulate.ts). */
+export interface SwatchResult {
+  name: string;
+  /** CIE XYZ under the light, Y = 100 for the perfect white */
+  xyz: [number, number, number];
+  /** CIE L*a*b* against the light's white */
+  lab: [number, number, number];
+  /** medium exposure m relative to white, opened up by the filter factor, linear (0.18 = middle grey) */
+  exposure: number;
+  /** tone on the medium, stops from middle grey: log2(m / 0.18), before any key placement */
+  stops: number;
+  /** tone to the eye, stops from middle grey: log2((Y/100) / 0.18) */
+  eyeStops: number;
+  /** stops − eyeStops, stops (+ reads lighter on the medium than it looks) */
+  shift: number;
+  /** zone before any key placement: 5 + stops, clamped to 0..10 (round for the Roman numeral) */
+  zone: number;
+  /** true when the spectrum was estimated from a colour value */
+  estimated: boolean;
+}
+
+/** A simulation of a light path and its swatches (the answer of POST /api/simulate, `SimulateResponse`). */
+export interface SimulationResult {
+  /** F = Σ E·S / Σ E·T·S, a multiplier */
+  filterFactor: number;
+  /** log2 F, stops */
+  filterStops: number;
+  /** true when the filters cost more than 10 stops on this medium (effectively opaque) */
+  opaque: boolean;
+  /** the light's white, XYZ with Y = 100 */
+  white: [number, number, number];
+  swatches: SwatchResult[];
+}
+
+/** What `simulate` takes: the sources of a POST /api/simulate body (validated by shared/schemas/simulate.ts). */
+export interface SimulationInput {
+  light: LightSource;
+  filters?: readonly FilterSource[];
+  medium: MediumSource;
+  swatches: readonly SwatchSource[];
+}
 
 function unknownId(id: string, want: string): SpectralInputError {
   const kind = kindOfId(id);
   return new SpectralInputError(kind ? `"${id}" is a built-in ${kind}, not a ${want}` : `there is no built-in ${want} "${id}"`, ['id']);
 }
 
-/** A filter source (schema form) → transmittance 0..1 on the grid. Errors carry the path inside the source. */
+/** A filter source (sources.ts form) → transmittance 0..1 on the grid. Errors carry the path inside the source. */
 export function resolveFilter(src: FilterSource): Spectrum {
   if (src.samples !== undefined) return within(['samples'], () => filterFromPairs(src.samples, src.basis));
   if (src.id !== undefined) {
@@ -61,7 +103,7 @@ export function resolveFilter(src: FilterSource): Spectrum {
   throw new SpectralInputError('a filter needs one of samples, id, longPass, shortPass, bandPass, notch, neutralDensity');
 }
 
-/** A light source (schema form) → relative power on the grid, peak 1, gels applied. */
+/** A light source (sources.ts form) → relative power on the grid, peak 1, gels applied. */
 export function resolveLight(src: LightSource): Spectrum {
   let e: Spectrum;
   if (src.cie !== undefined) e = within(['cie'], () => cieIlluminant(src.cie!));
@@ -81,7 +123,7 @@ export function resolveLight(src: LightSource): Spectrum {
   return e;
 }
 
-/** A medium source (schema form) → relative sensitivity per unit energy on the grid, peak 1. */
+/** A medium source (sources.ts form) → relative sensitivity per unit energy on the grid, peak 1. */
 export function resolveMedium(src: MediumSource): Spectrum {
   if (src.samples !== undefined) return within(['samples'], () => mediumFromPairs(src.samples, src.basis));
   if (src.id !== undefined) {
@@ -190,7 +232,7 @@ export function prepareStack(spectra: { light: Spectrum; filters?: readonly Spec
   return Object.freeze({ light, filters, transmission, medium, white, eyeWeights, mediumWeights, factor });
 }
 
-/** Schema-validated light, filters and medium → a prepared Stack. Errors carry the request path. */
+/** Validated light, filters and medium sources (sources.ts) → a prepared Stack. Errors carry the request path. */
 export function resolveStack(input: { light: LightSource; filters?: readonly FilterSource[]; medium: MediumSource }): Stack {
   const light = within(['light'], () => resolveLight(input.light));
   const filters = (input.filters ?? []).map((f, i) => within(['filters', i], () => resolveFilter(f)));
@@ -199,7 +241,10 @@ export function resolveStack(input: { light: LightSource; filters?: readonly Fil
 }
 
 const FLOOR = MIDDLE_GREY * 2 ** FLOOR_STOPS;
-/** Stops from middle grey of a relative value (floored at FLOOR_STOPS). */
+/**
+ * Stops from middle grey of a linear relative value (a medium exposure m, or Y/100 for the eye):
+ * log2(value / 0.18), floored at FLOOR_STOPS. As metered: no key placement here.
+ */
 export function stopsFromGrey(relative: number): number {
   return Math.log2(Math.max(relative, FLOOR) / MIDDLE_GREY);
 }
@@ -208,10 +253,10 @@ export function stopsFromGrey(relative: number): number {
  * Every swatch through `stack`: XYZ and L*a*b* to the eye, exposure m, stops, eye stops, shift and
  * zone (definitions in the header). Cost per swatch: four 81-sample dot products.
  */
-export function simulateSwatches(stack: Stack, swatches: readonly ResolvedSwatch[]): SimulateResponse {
+export function simulateSwatches(stack: Stack, swatches: readonly ResolvedSwatch[]): SimulationResult {
   const { x: wx, y: wy, z: wz } = stack.eyeWeights;
   const wm = stack.mediumWeights;
-  const out: SwatchResultView[] = swatches.map((s) => {
+  const out: SwatchResult[] = swatches.map((s) => {
     const r = onGrid(s.reflectance).values;
     let X = 0;
     let Y = 0;
@@ -243,7 +288,7 @@ export function simulateSwatches(stack: Stack, swatches: readonly ResolvedSwatch
 }
 
 /** POST /api/simulate in one call: a validated request and the upsampling table → the answer. */
-export function simulate(request: SimulateRequest, table: UpsampleTable | null): SimulateResponse {
+export function simulate(request: SimulationInput, table: UpsampleTable | null): SimulationResult {
   const stack = resolveStack(request);
   const swatches = request.swatches.map((s, i) => within(['swatches', i], () => resolveSwatch(s, table)));
   return simulateSwatches(stack, swatches);

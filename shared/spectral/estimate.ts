@@ -1,23 +1,25 @@
 /**
  * Estimated reflectances for colour values (sRGB hex or triple, linear sRGB, L*a*b*), which have no
- * spectrum of their own: the smooth upsampling of upsample.ts (Jakob & Hanika 2019), looked up in the
- * table and refined by a few Gauss–Newton steps so the colour is reproduced under D65 (to about
- * 1e-4 ΔE*ab, except at pure black and white, which the model only approaches).
+ * spectrum of their own: the smooth upsampling of upsample.ts (Jakob & Hanika 2019), tabulated over linear
+ * sRGB (upsample-table.ts); a colour's reflectance is the blend of its table cell's node spectra
+ * (node-spectra.ts), which reproduces it under D65 (ΔE00 about 1e-5, except at pure white, which the model
+ * only approaches). Swatches and photo pixels share it, so a colour gets one grey everywhere.
  */
 import { SpectralInputError } from './errors';
-import { hexToSrgb, labToXyz, linearSrgbToXyz, srgbToLinear, xyzToLinearSrgb, type Lab3, type Rgb3 } from './colour';
-import { fitCoefficients, sigmoidReflectance } from './upsample';
-import { lookupCoefficients, type UpsampleTable } from './upsample-table';
-import type { Spectrum } from './spectrum';
+import { hexToSrgb, labToXyz, srgbToLinear, xyzToLinearSrgb } from './colour';
+import { blendedReflectance } from './node-spectra';
+import type { UpsampleTable } from './upsample-table';
+import type { Lab3, Rgb3, Spectrum } from './types';
 
 /** Linear sRGB outside [−ε, 1 + ε] is out of gamut (ε absorbs rounding of typed-in L*a*b*). */
 export const GAMUT_EPSILON = 2e-3;
 
-/** A reflectance (0..1) on the grid reproducing linear sRGB `rgb` (each 0..1, clamped) under D65. */
+/**
+ * A reflectance (0..1) on the grid reproducing linear sRGB `rgb` (each 0..1, clamped) under D65: the blend
+ * of its table cell's node spectra (node-spectra.ts), the very estimate photo pixels of this colour get.
+ */
 export function reflectanceFromLinearRgb(rgb: Rgb3, table: UpsampleTable): Spectrum {
-  const c = rgb.map((v) => Math.min(1, Math.max(0, v))) as Rgb3;
-  const start = lookupCoefficients(table, c[0], c[1], c[2], [0, 0, 0]);
-  return sigmoidReflectance(fitCoefficients(linearSrgbToXyz(c), start, { maxIterations: 16, tolerance: 1e-4 }).coefficients);
+  return blendedReflectance(table, rgb);
 }
 
 /**
@@ -42,4 +44,12 @@ export function reflectanceFromLab(lab: Lab3, table: UpsampleTable): Spectrum {
     throw new SpectralInputError(`L*a*b* (${lab.join(', ')}) lies outside the sRGB gamut`);
   }
   return reflectanceFromLinearRgb(lin, table);
+}
+
+/**
+ * A reflectance (0..1) reproducing CIE XYZ under D65 (Y = 100 for white), for colours given as XYZ (a
+ * measured colour without its spectrum): through linear sRGB when it lies in the gamut, else clamped.
+ */
+export function estimateFromXyz(xyz: readonly [number, number, number], table: UpsampleTable): Spectrum {
+  return reflectanceFromLinearRgb(xyzToLinearSrgb(xyz as [number, number, number]), table);
 }

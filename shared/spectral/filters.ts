@@ -5,7 +5,8 @@
  */
 import { GRID_NM } from './grid';
 import { risingEdge } from './shapes';
-import { constantSpectrum, makeSpectrum, multiply, type Spectrum } from './spectrum';
+import { constantSpectrum, makeSpectrum, multiply } from './spectrum';
+import type { Spectrum } from './types';
 
 /** Default 10–90 % edge width of the parametric filters, nm (a typical dyed filter edge). */
 export const DEFAULT_SLOPE_NM = 20;

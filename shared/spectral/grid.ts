@@ -2,7 +2,7 @@
  * The working grid (380–780 nm at 5 nm, 81 samples; see policy.ts for the standard behind it).
  */
 import { GRID_SHAPE, GRID_SIZE, GRID_START_NM, GRID_STEP_NM, wavelengthsOf } from './policy';
-import type { SpectrumShape } from './spectrum';
+import type { SpectrumShape } from './types';
 
 /** Wavelengths of the working grid, nm: 380, 385, … 780. Do not mutate. */
 export const GRID_NM: Float64Array = wavelengthsOf(GRID_SHAPE);

@@ -8,10 +8,8 @@
 import { CMF_TABLE } from './cie';
 import { GRID_NM } from './grid';
 import { GRID_SIZE, GRID_START_NM, GRID_STEP_NM, INTEGRATION_STEP_NM, interpolateAt, spragueAt } from './policy';
-import { onGrid, type Spectrum } from './spectrum';
-
-/** XYZ tristimulus values, Y = 100 for the perfect reflecting diffuser under the light. */
-export type Xyz = [number, number, number];
+import { onGrid } from './spectrum';
+import type { Spectrum, Xyz } from './types';
 
 /** Σ a·b over the grid (both on the grid). */
 export function dot(a: ArrayLike<number>, b: ArrayLike<number>): number {

@@ -8,9 +8,8 @@ import { z } from 'zod';
 import lightsJson from '../../data/library/lights.json';
 import filtersJson from '../../data/library/filters.json';
 import mediaJson from '../../data/library/media.json';
-import { filterSourceSchema, lightSourceSchema } from '../schemas/simulate';
-import type { FilterSource, LightSource } from '../schemas/simulate';
 import type { MediumModel } from './media';
+import { filterSourceSchema, lightSourceSchema, type FilterSource, type LightSource } from './sources';
 
 const lobe = z.strictObject({ centreNm: z.number(), widthNm: z.number().positive(), weight: z.number().positive() });
 const mediumModelSchema = z.strictObject({
@@ -55,7 +54,7 @@ const lightsFile = fileOf(lightSourceSchema.refine(noId, 'library lights cannot 
 const filtersFile = fileOf(filterSourceSchema.refine(noId, 'library filters cannot refer to other ids')).parse(filtersJson);
 const mediaFile = fileOf(mediumDefinitionSchema).parse(mediaJson);
 
-/** Built-in lights (definitions in the light-source form of shared/schemas/simulate.ts). */
+/** Built-in lights (definitions in the light-source form of sources.ts). */
 export const LIBRARY_LIGHTS: readonly LibraryItem<LightSource>[] = lightsFile.items;
 /** Built-in filters (definitions in the filter-source form). */
 export const LIBRARY_FILTERS: readonly LibraryItem<FilterSource>[] = filtersFile.items;

@@ -9,7 +9,8 @@ import { GRID_NM } from './grid';
 import { BLACKBODY_K, DAYLIGHT_CCT_K, type CieIlluminantName } from './limits';
 import { GRID_SIZE } from './policy';
 import { gaussian } from './shapes';
-import { makeSpectrum, multiply, normalisePeak, type Spectrum } from './spectrum';
+import { makeSpectrum, multiply, normalisePeak } from './spectrum';
+import type { Spectrum } from './types';
 
 /** Second radiation constant, m·K (CIE 015:2018, ITS-90). */
 export const C2_M_K = 1.4388e-2;

@@ -1,6 +1,6 @@
 /**
- * Names and ranges the engine accepts, shared with the zod schemas (shared/schemas/simulate.ts) so a
- * form and the engine refuse the same things.
+ * Names and ranges the engine accepts, shared with the source schemas (sources.ts, re-exported by
+ * shared/schemas/simulate.ts) so a form and the engine refuse the same things.
  */
 
 /** CIE illuminants available by name. D50 is made from the daylight components (see lights.ts). */

@@ -8,7 +8,8 @@ import { toEnergyBasis } from './bases';
 import { CMF } from './cie';
 import { GRID_NM } from './grid';
 import { gaussian, risingEdge } from './shapes';
-import { makeSpectrum, normalisePeak, type Spectrum } from './spectrum';
+import { makeSpectrum, normalisePeak } from './spectrum';
+import type { Spectrum } from './types';
 
 /** One sensitivity lobe: a Gaussian of relative height `weight`. */
 export interface MediumLobe {

@@ -24,7 +24,7 @@
  * - A spectrum on another grid is resampled explicitly (`resample` in spectrum.ts, by `interpolateAt`
  *   below), never silently.
  */
-import type { SpectrumShape } from './spectrum';
+import type { SpectrumShape } from './types';
 
 /** First wavelength of the working grid, nm (CIE 015:2018). */
 export const GRID_START_NM = 380;

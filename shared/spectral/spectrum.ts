@@ -5,22 +5,9 @@
 import { SpectralInputError } from './errors';
 import { GRID_SHAPE, GRID_SIZE, MIN_COVERAGE_NM, interpolateAt, wavelengthsOf } from './policy';
 import { isGridShape } from './grid';
+import type { Spectrum, SpectrumShape } from './types';
 
-/** A regular wavelength sampling, nm. */
-export interface SpectrumShape {
-  readonly startNm: number;
-  readonly endNm: number;
-  readonly stepNm: number;
-}
-
-/** A sampled spectral quantity (power, transmittance, sensitivity or reflectance) on `shape`. */
-export interface Spectrum {
-  readonly shape: SpectrumShape;
-  readonly values: Float64Array;
-}
-
-/** `[nm, value]` pairs as they arrive from files, forms and the API. */
-export type SpectralPairs = readonly (readonly [number, number])[];
+export type { Spectrum } from './types';
 
 /** Wraps values (copied) as a spectrum on `shape` (default: the working grid). */
 export function makeSpectrum(values: ArrayLike<number>, shape: SpectrumShape = GRID_SHAPE): Spectrum {

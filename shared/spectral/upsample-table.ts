@@ -13,7 +13,8 @@
  * float32 coefficients[3·R³·3].
  */
 import methodJson from '../../data/upsample/method.json';
-import { linearSrgbToXyz, type Rgb3 } from './colour';
+import { linearSrgbToXyz } from './colour';
+import type { Rgb3 } from './types';
 import { fitCoefficients, type Coefficients } from './upsample';
 
 /** The coefficient table. */

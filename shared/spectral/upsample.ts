@@ -12,8 +12,9 @@
 import { GRID_NM } from './grid';
 import { cieIlluminant } from './lights';
 import { GRID_SIZE } from './policy';
-import { makeSpectrum, type Spectrum } from './spectrum';
-import { tristimulusWeights, type Xyz } from './integrate';
+import { makeSpectrum } from './spectrum';
+import { tristimulusWeights } from './integrate';
+import type { Spectrum, Xyz } from './types';
 import { SRGB_WHITE } from './colour';
 
 /** Three sigmoid-polynomial coefficients (c0 on t², c1 on t, c2 constant). */

@@ -81,16 +81,13 @@ export function gradient(c: CharacteristicCurve, logH: number): number {
  * Returns NaN when the target lies outside f's range on the interval.
  */
 export function solveIncreasing(f: (x: number) => number, target: number, lo = LOG_H_SEARCH[0], hi = LOG_H_SEARCH[1]): number {
-  let fl = f(lo);
+  const fl = f(lo);
   const fh = f(hi);
   if (!(target >= fl && target <= fh)) return Number.NaN;
   for (let i = 0; i < 200 && hi - lo > 1e-13; i++) {
     const mid = 0.5 * (lo + hi);
-    const fm = f(mid);
-    if (fm < target) {
-      lo = mid;
-      fl = fm;
-    } else hi = mid;
+    if (f(mid) < target) lo = mid;
+    else hi = mid;
   }
   return 0.5 * (lo + hi);
 }

@@ -7,6 +7,7 @@
  * one; Grisaille's default is C = 250 (flat receptor, the commonly used value). The foot-candle form of
  * the same equation uses C / 10.764.
  */
+import { MIDDLE_GREY } from '../spectral/limits';
 
 /** 1 foot-candle = 1 lm/ft² = 1 / 0.3048² lux ≈ 10.764 lux (definition; the international foot is 0.3048 m). */
 export const LUX_PER_FOOTCANDLE = 1 / 0.3048 ** 2;
@@ -101,9 +102,9 @@ export const CAMERA_EXPOSURE_Q = 0.65;
 /**
  * Exposure (lux·s) at the film plane of a middle-grey (18 %) surface lit by the meter's recommended
  * incident light at exposure index `ei`: H = q · 0.18 · C / (π · EI) (ISO 2720 incident metering, a
- * matte surface of reflectance 0.18). 9.31 / EI lux·s with the defaults.
+ * matte surface of reflectance MIDDLE_GREY = 0.18). 9.31 / EI lux·s with the defaults.
  */
 export function middleGreyExposureLuxSeconds(ei: number, c: number = DEFAULT_INCIDENT_C): number {
   if (!(ei > 0)) throw new RangeError('ei must be positive');
-  return (CAMERA_EXPOSURE_Q * 0.18 * c) / (Math.PI * ei);
+  return (CAMERA_EXPOSURE_Q * MIDDLE_GREY * c) / (Math.PI * ei);
 }

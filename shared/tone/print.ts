@@ -1,23 +1,15 @@
 /**
  * From the negative to what the eye sees: a print (paper curve, contrast grade, print exposure) or, for a
- * sensor, a display curve; then the IEC 61966-2-1 (sRGB) encoding of the resulting grey.
+ * sensor, a display curve; then the IEC 61966-2-1 (sRGB) encoding of the resulting grey (srgbEncode, the
+ * one sRGB transfer function, in shared/spectral/colour.ts; re-exported here).
  *
  * Print grey is the print's reflectance relative to the paper white (1 = paper white), i.e. a relative
  * luminance, which is shown as an sRGB grey with the paper white at 255.
  */
+import { MIDDLE_GREY } from '../spectral/limits';
 import { type CharacteristicCurve, type CurveShape, density, makeCurve, netDensity, solveIncreasing } from './characteristic-curve';
 
-/** IEC 61966-2-1 sRGB encoding of a relative luminance 0..1 (clamped) → encoded value 0..1. */
-export function srgbEncode(y: number): number {
-  const v = Math.min(1, Math.max(0, y));
-  return v <= 0.0031308 ? 12.92 * v : 1.055 * v ** (1 / 2.4) - 0.055;
-}
-
-/** IEC 61966-2-1 sRGB decoding: encoded value 0..1 → relative luminance 0..1. */
-export function srgbDecode(v: number): number {
-  const e = Math.min(1, Math.max(0, v));
-  return e <= 0.04045 ? e / 12.92 : ((e + 0.055) / 1.055) ** 2.4;
-}
+export { srgbDecode, srgbEncode } from '../spectral/colour';
 
 /** An encoded sRGB value 0..1 as an 8-bit code 0..255 (rounded). */
 export function to8bit(encoded: number): number {
@@ -80,18 +72,21 @@ export interface PrintMapping {
   printLightLog: number;
 }
 
-/** The relative luminance (0..1) of the print of middle grey: 18 % of paper white. */
-export const PRINT_MIDDLE_GREY = 0.18;
+/**
+ * The print's target for middle grey: its reflectance relative to paper white (a relative luminance 0..1),
+ * 18 % — middle grey printed as middle grey, so the one MIDDLE_GREY (shared/spectral/limits.ts).
+ */
+export const PRINT_MIDDLE_GREY = MIDDLE_GREY;
 
 /**
  * Times a print: finds the printing light that renders the negative density `greyDensity` (that of middle
- * grey at the key exposure) as 18 % of paper white, then adds `exposureStops` stops of printing light
- * (+ = more light = a darker print).
+ * grey at the key exposure) as 18 % of paper white, then adds `printExposureStops` stops of printing light
+ * (+ = more light = a darker print; stops of printing light, not of camera exposure).
  */
-export function timePrint(paper: CharacteristicCurve, greyDensity: number, exposureStops = 0): PrintMapping {
+export function timePrint(paper: CharacteristicCurve, greyDensity: number, printExposureStops = 0): PrintMapping {
   const xGrey = solveIncreasing((x) => netDensity(paper, x), -Math.log10(PRINT_MIDDLE_GREY));
   if (!Number.isFinite(xGrey)) throw new RangeError('the paper cannot print middle grey');
-  return { paper, printLightLog: xGrey + greyDensity + exposureStops * Math.log10(2) };
+  return { paper, printLightLog: xGrey + greyDensity + printExposureStops * Math.log10(2) };
 }
 
 /** Print density (total) for a negative of total density `negativeDensity`. */
@@ -108,7 +103,7 @@ export function printGrey(p: PrintMapping, negativeDensity: number): number {
 
 /** A sensor shown on a display: linear signal clipped at `headroomStops` above middle grey, then a soft shoulder. */
 export interface DisplayCurve {
-  /** stops above middle grey at which the sensor clips */
+  /** stops above middle grey (after key placement) at which the sensor clips */
   headroomStops: number;
   /** shoulder softness, stops */
   shoulderStops: number;
@@ -124,15 +119,16 @@ export function displayContrast(grade: number): number {
 }
 
 /**
- * Display grey (relative luminance 0..1, display white = 1) of a sensor exposure `stops` from middle grey.
- * Middle grey shows as 0.18; `exposureStops` (+ = darker) and `grade` (contrast about middle grey) act
- * like print exposure and paper grade; above the sensor clip the signal no longer rises.
+ * Display grey (relative luminance 0..1, display white = 1) of a sensor exposure `stopsAfterKey` stops from
+ * middle grey (after key placement). Middle grey shows as 0.18; `displayExposureStops` (+ = darker) and
+ * `grade` (contrast about middle grey) act like print exposure and paper grade; above the sensor clip the
+ * signal no longer rises.
  */
-export function displayGrey(stops: number, curve: DisplayCurve, grade = 2, exposureStops = 0): number {
+export function displayGrey(stopsAfterKey: number, curve: DisplayCurve, grade = 2, displayExposureStops = 0): number {
   const k = curve.shoulderStops;
   const softplus = (z: number) => Math.max(z, 0) + Math.log1p(Math.exp(-Math.abs(z)));
   const softmin = (a: number) => DISPLAY_WHITE_STOPS - k * softplus((DISPLAY_WHITE_STOPS - a) / k);
-  const s = Math.min(stops, curve.headroomStops) - exposureStops;
+  const s = Math.min(stopsAfterKey, curve.headroomStops) - displayExposureStops;
   const o = softmin(displayContrast(grade) * s) - softmin(0);
   return Math.min(1, PRINT_MIDDLE_GREY * 2 ** o);
 }

@@ -11,6 +11,8 @@
  * Effective thresholds: rating slower, or pushing (its real speed gain), gives the shadows that many
  * more stops of room; a sensor rated slower loses as much highlight headroom as it gains shadow room.
  */
+import { srgbEncode } from '../spectral/colour';
+import { MIDDLE_GREY } from '../spectral/limits';
 import { type CharacteristicCurve, type CurveShape, density } from './characteristic-curve';
 import { type DevelopmentModel, DEFAULT_DEVELOPMENT_MODEL, developCurve, developmentSpeedStops } from './development';
 import { curveForIsoSpeed } from './iso-speed';
@@ -24,11 +26,10 @@ import {
   paperCurve,
   printDensity,
   printGrey,
-  srgbEncode,
   timePrint,
   to8bit,
 } from './print';
-import { MIDDLE_GREY, stopsFromMiddleGrey, toneFlags, zoneFromStops, zoneNumeral } from './zones';
+import { ZONE_NUMERALS, stopsFromMiddleGrey, stopsFromZone, toneFlags, zoneFromStops, zoneNumeral } from './zones';
 
 /** The tone settings a look carries (the shape of shared/schemas/exposure toneSettingsSchema's output). */
 export interface ToneSettingsLike {
@@ -60,8 +61,9 @@ export interface TonePipelineOptions {
   mediumId: string;
   settings?: Partial<ToneSettingsLike>;
   /**
-   * stops every tone is moved by: the key placement, keyOffsetStops(keyStops, keyZone) from zones.ts, where
-   * keyStops is the key swatch's medium stops (0 for middle grey); default 0
+   * stops every tone is moved by (stops after key = stops before key + offsetStops): the key placement,
+   * keyOffsetStops(keyStopsBeforeKey, keyZone) from zones.ts, where keyStopsBeforeKey is the key swatch's
+   * medium stops as metered (0 for middle grey); default 0
    */
   offsetStops?: number;
   /** box speed override (else the medium's default) */
@@ -71,11 +73,11 @@ export interface TonePipelineOptions {
 }
 
 export interface ToneResult {
-  /** the medium exposure given (linear, 0.18 = middle grey; values under 1e-6 are taken as 1e-6) */
+  /** the medium exposure given, before key placement (linear, 0.18 = middle grey; values under 1e-6 are taken as 1e-6) */
   m: number;
   /** stops from middle grey after key placement */
   stops: number;
-  /** 5 + stops, unrounded */
+  /** zone after key placement: 5 + stops, unrounded */
   zone: number;
   /** nearest zone, '0'..'X' */
   numeral: string;
@@ -119,10 +121,10 @@ export interface TonePipeline {
   /** thresholds in force, stops from zone V (positive numbers) */
   shadowDetailStops: number;
   highlightRollOffStops: number;
-  /** renders a medium exposure m (linear, 0.18 = middle grey) */
+  /** renders a medium exposure m as metered (linear, 0.18 = middle grey; before key placement) */
   render(m: number): ToneResult;
-  /** renders a tone given in stops from middle grey (before placement) */
-  renderStops(stops: number): ToneResult;
+  /** renders a tone given in stops from middle grey before key placement */
+  renderStops(stopsBeforeKey: number): ToneResult;
   /** zones 0..X on the curve's log H axis, for charts (empty unless a negative) */
   zoneMarks(): ZoneMark[];
 }
@@ -161,9 +163,9 @@ export function buildTonePipeline(opts: TonePipelineOptions): TonePipeline {
     highlight = highlightSetting + rating;
   }
 
-  const renderStops = (stops0: number): ToneResult => {
-    const s0 = Math.max(stops0, stopsFromMiddleGrey(M_FLOOR));
-    const stops = s0 + offset;
+  const renderStops = (stopsBeforeKeyGiven: number): ToneResult => {
+    const stopsBeforeKey = Math.max(stopsBeforeKeyGiven, stopsFromMiddleGrey(M_FLOOR));
+    const stops = stopsBeforeKey + offset; // after key placement
     const zone = zoneFromStops(stops);
     let logH: number | null = null;
     let dNeg: number | null = null;
@@ -181,7 +183,7 @@ export function buildTonePipeline(opts: TonePipelineOptions): TonePipeline {
     }
     const srgb = srgbEncode(grey);
     return {
-      m: MIDDLE_GREY * 2 ** s0,
+      m: MIDDLE_GREY * 2 ** stopsBeforeKey,
       stops,
       zone,
       numeral: zoneNumeral(zone),
@@ -210,9 +212,9 @@ export function buildTonePipeline(opts: TonePipelineOptions): TonePipeline {
     zoneMarks: () => {
       const c = curve;
       if (!c) return [];
-      return Array.from({ length: 11 }, (_, zone) => {
-        const logH = logHGrey + (zone - 5) * Math.log10(2);
-        return { zone, numeral: zoneNumeral(zone), logH, density: density(c, logH) };
+      return ZONE_NUMERALS.map((numeral, zone) => {
+        const logH = logHGrey + stopsFromZone(zone) * Math.log10(2);
+        return { zone, numeral, logH, density: density(c, logH) };
       });
     },
   };

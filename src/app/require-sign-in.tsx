@@ -1,6 +1,7 @@
 import { Navigate, Outlet, useLocation } from 'react-router-dom';
 import { useMe } from '../features/auth/api/get-me';
 import { Spinner } from '../components/ui/alert';
+import { paths } from '../lib/paths';
 
 /** Routes inside need a session; otherwise to /sign-in (or /setup on an empty site). */
 export function RequireSignIn() {
@@ -9,8 +10,8 @@ export function RequireSignIn() {
   if (me.isPending) return <div className="p-10"><Spinner /></div>;
   if (me.isError) throw me.error;
   if (!me.data.user) {
-    if (me.data.needsSetup) return <Navigate to="/setup" replace />;
-    return <Navigate to={`/sign-in?next=${encodeURIComponent(loc.pathname + loc.search)}`} replace />;
+    if (me.data.needsSetup) return <Navigate to={paths.setup()} replace />;
+    return <Navigate to={paths.signIn(loc.pathname + loc.search)} replace />;
   }
   return <Outlet />;
 }

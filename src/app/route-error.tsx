@@ -1,5 +1,6 @@
 import { isRouteErrorResponse, Link, useRouteError } from 'react-router-dom';
 import { ApiError } from '../lib/api-client';
+import { paths } from '../lib/paths';
 
 /** The error boundary of every route. */
 export function RouteError() {
@@ -17,7 +18,7 @@ export function RouteError() {
     <div className="mx-auto max-w-lg p-10">
       <h1>{title}</h1>
       <p className="mt-2 text-ink-soft" role="alert">{message}</p>
-      <Link to="/" className="mt-6 inline-block text-accent underline">Back to productions</Link>
+      <Link to={paths.home()} className="mt-6 inline-block text-accent underline">Back to productions</Link>
     </div>
   );
 }

@@ -4,6 +4,10 @@ import { AppShell } from '../components/layouts/app-shell';
 import { RequireSignIn } from './require-sign-in';
 import { RouteError } from './route-error';
 import { Spinner } from '../components/ui/alert';
+import { paths } from '../lib/paths';
+
+/** The patterns of a production's pages. */
+const P = paths.production(':productionId');
 
 /** Pages load lazily; each route has its own error boundary. */
 function page(load: () => Promise<{ default: ComponentType }>): { element: JSX.Element; errorElement: JSX.Element } {
@@ -18,30 +22,30 @@ function page(load: () => Promise<{ default: ComponentType }>): { element: JSX.E
   };
 }
 
-/** Pages under /p/:productionId. Features add theirs here. */
+/** Pages under /p/:productionId (absolute patterns from `paths`). Features add theirs here. */
 const productionPages: RouteObject[] = [
   { index: true, ...page(() => import('./routes/production-overview')) },
-  { path: 'team', ...page(() => import('./routes/team')) },
+  { path: P.team(), ...page(() => import('./routes/team')) },
   // PRODUCTION ROUTES START
-  { path: 'looks/:lookId/sheet', ...page(() => import('./routes/exposure-sheet')) },
-  { path: 'looks', ...page(() => import('./routes/looks')) },
-  { path: 'looks/compare', ...page(() => import('./routes/looks-compare')) },
-  { path: 'bench', ...page(() => import('./routes/bench')) },
-  { path: 'bench/:lookId', ...page(() => import('./routes/bench')) },
-  { path: 'library', ...page(() => import('./routes/library')) },
-  { path: 'swatches', ...page(() => import('./routes/swatches')) },
-  { path: 'boards', ...page(() => import('./routes/boards')) },
-  { path: 'boards/:boardId', ...page(() => import('./routes/board')) },
-  { path: 'photos', ...page(() => import('./routes/photos')) },
+  { path: P.sheet(':lookId'), ...page(() => import('./routes/exposure-sheet')) },
+  { path: P.looks(), ...page(() => import('./routes/looks')) },
+  { path: P.compare(), ...page(() => import('./routes/looks-compare')) },
+  { path: P.bench(), ...page(() => import('./routes/bench')) },
+  { path: P.bench(':lookId'), ...page(() => import('./routes/bench')) },
+  { path: P.library(), ...page(() => import('./routes/library')) },
+  { path: P.swatches(), ...page(() => import('./routes/swatches')) },
+  { path: P.boards(), ...page(() => import('./routes/boards')) },
+  { path: P.board(':boardId'), ...page(() => import('./routes/board')) },
+  { path: P.photos(), ...page(() => import('./routes/photos')) },
   // PRODUCTION ROUTES END
 ];
 
 const router = createBrowserRouter([
-  { path: '/sign-in', ...page(() => import('./routes/sign-in')) },
-  { path: '/setup', ...page(() => import('./routes/setup')) },
-  { path: '/reset', ...page(() => import('./routes/reset-request')) },
-  { path: '/reset/:token', ...page(() => import('./routes/reset-confirm')) },
-  { path: '/invitation/:token', ...page(() => import('./routes/accept-invitation')) },
+  { path: paths.signIn(), ...page(() => import('./routes/sign-in')) },
+  { path: paths.setup(), ...page(() => import('./routes/setup')) },
+  { path: paths.resetRequest(), ...page(() => import('./routes/reset-request')) },
+  { path: paths.resetConfirm(':token'), ...page(() => import('./routes/reset-confirm')) },
+  { path: paths.invitation(':token'), ...page(() => import('./routes/accept-invitation')) },
   {
     element: <RequireSignIn />,
     errorElement: <RouteError />,
@@ -50,9 +54,9 @@ const router = createBrowserRouter([
         element: <AppShell />,
         errorElement: <RouteError />,
         children: [
-          { path: '/', ...page(() => import('./routes/productions')) },
-          { path: '/admin/outbox', ...page(() => import('./routes/outbox')) },
-          { path: '/p/:productionId', errorElement: <RouteError />, children: productionPages },
+          { path: paths.home(), ...page(() => import('./routes/productions')) },
+          { path: paths.outbox(), ...page(() => import('./routes/outbox')) },
+          { path: P.root(), errorElement: <RouteError />, children: productionPages },
         ],
       },
     ],

@@ -3,6 +3,8 @@
  * request (fetched lazily, refreshed once on a 403 'csrf'), and a typed error carrying the server's
  * `{ error: { code, message, field? } }`. Components show the messages; this file never does.
  */
+import { apiPaths } from './paths';
+
 export class ApiError extends Error {
   constructor(
     readonly status: number,
@@ -20,7 +22,7 @@ export function setCsrfToken(t: string | null) {
 }
 async function ensureCsrf(): Promise<string> {
   if (csrfToken) return csrfToken;
-  const r = await fetch('/api/auth/csrf', { credentials: 'same-origin' });
+  const r = await fetch(apiPaths.auth.csrf(), { credentials: 'same-origin' });
   const body = await r.json();
   csrfToken = body.csrfToken as string;
   return csrfToken;

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { startTestApp, type TestApp } from '../helpers/api';
+import { startTestApp, withTestApp, type TestApp } from '../helpers/api';
 import { User } from '../../server/db/entities/user.entity';
 
 let t: TestApp;
@@ -99,8 +99,7 @@ describe('errors and health', () => {
 
 describe('first account', () => {
   it('on an empty database the first account becomes site admin, and only once', async () => {
-    const empty = await startTestApp({ seed: false });
-    try {
+    await withTestApp({ seed: false }, async (empty) => {
       const a = await empty.agent();
       expect((await a.get('/api/auth/me')).body.needsSetup).toBe(true);
       const r = await a.post('/api/auth/setup').send({ email: 'first@example.test', name: 'First', password: 'a-long-password' });
@@ -110,38 +109,30 @@ describe('first account', () => {
       const again = await b.post('/api/auth/setup').send({ email: 'second@example.test', name: 'Second', password: 'a-long-password' });
       expect(again.status).toBe(409);
       expect(await empty.ctx.ds.getRepository(User).count()).toBe(1);
-    } finally {
-      await empty.close();
-    }
+    });
   });
 });
 
 describe('rate limits', () => {
   it('limits sign-in attempts', async () => {
-    const limited = await startTestApp({ env: { authRateLimit: 3 } });
-    try {
+    await withTestApp({ env: { authRateLimit: 3 } }, async (limited) => {
       const a = await limited.agent();
       const codes: number[] = [];
       for (let i = 0; i < 5; i++) codes.push((await a.post('/api/auth/sign-in').send({ email: 'camera@demo.grisaille.test', password: 'wrong-password' })).status);
       expect(codes.slice(0, 3)).toEqual([401, 401, 401]);
       expect(codes[4]).toBe(429);
-    } finally {
-      await limited.close();
-    }
+    });
   });
 });
 
 describe('rate limit on changes', () => {
   it('limits state-changing requests, not reads', async () => {
-    const limited = await startTestApp({ env: { writeRateLimit: 2 } });
-    try {
+    await withTestApp({ env: { writeRateLimit: 2 } }, async (limited) => {
       const a = await limited.agent('camera@demo.grisaille.test'); // the sign-in is the first change
       const codes: number[] = [];
       for (let i = 0; i < 3; i++) codes.push((await a.post('/api/productions').send({ name: `P${i}` })).status);
       expect(codes).toEqual([201, 429, 429]);
       expect((await a.get('/api/productions')).status).toBe(200);
-    } finally {
-      await limited.close();
-    }
+    });
   });
 });

@@ -3,7 +3,7 @@
  * and not in another), create / read / update / delete, department rules, thresholds, bad input.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApp, type Agent, type TestApp } from '../helpers/api';
+import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import { Board } from '../../server/db/entities/board.entity';
 import type { BoardTones } from '../../shared/schemas/board';
 
@@ -24,12 +24,7 @@ const tonesOf = async (a: Agent, id: number, q = ''): Promise<BoardTones> => (aw
 const pairKey = (m: { a: number; b: number }) => `${m.a}-${m.b}`;
 
 beforeAll(async () => {
-  t = await startTestApp();
-  base = `/api/productions/${t.demoProductionId}`;
-  costume = await t.agent('costume@demo.grisaille.test');
-  makeup = await t.agent('makeup@demo.grisaille.test');
-  owner = await t.agent('camera@demo.grisaille.test');
-  viewer = await t.agent('lab@demo.grisaille.test');
+  ({ t, base, as: { costume, makeup, owner, viewer } } = await startDemoAs({ costume: 'costume', makeup: 'makeup', owner: 'camera', viewer: 'lab' }));
 });
 afterAll(async () => t?.close());
 

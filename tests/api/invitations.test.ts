@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { startTestApp, type TestApp } from '../helpers/api';
+import { startTestApp, type Agent, type TestApp } from '../helpers/api';
 import { Invitation } from '../../server/db/entities/invitation.entity';
 import { Membership } from '../../server/db/entities/membership.entity';
 import { User } from '../../server/db/entities/user.entity';
@@ -8,10 +8,16 @@ let t: TestApp;
 beforeAll(async () => void (t = await startTestApp()));
 afterAll(async () => t.close());
 
+/** The demo production's owner (the cinematographer), signed in. */
+const signInOwner = () => t.agent('camera@demo.grisaille.test');
+const invite = (owner: Agent, pid: number, email: string, role: string, department: string) =>
+  owner.post(`/api/productions/${pid}/invitations`).send({ email, role, department });
+/** The token of the invitation mailed last. */
+const lastInvitationToken = async () => t.linkIn((await t.outbox())[0].text, '/invitation/');
+
 it('invites a new person end to end through the fake SMTP server', async () => {
-  const owner = await t.agent('camera@demo.grisaille.test');
   const pid = t.demoProductionId;
-  const r = await owner.post(`/api/productions/${pid}/invitations`).send({ email: 'Colourist@Example.test', role: 'viewer', department: 'lab' });
+  const r = await invite(await signInOwner(), pid, 'Colourist@Example.test', 'viewer', 'lab');
   expect(r.status).toBe(201);
   expect(r.body.invitation.email).toBe('colourist@example.test');
   const expires = new Date(r.body.invitation.expiresAt).getTime();
@@ -45,11 +51,11 @@ it('invites a new person end to end through the fake SMTP server', async () => {
 });
 
 it('an existing account accepts with its own password', async () => {
-  const owner = await t.agent('camera@demo.grisaille.test');
+  const owner = await signInOwner();
   const p = await owner.post('/api/productions').send({ name: 'Second unit' });
   const pid = p.body.production.id;
-  await owner.post(`/api/productions/${pid}/invitations`).send({ email: 'lab@demo.grisaille.test', role: 'editor', department: 'lab' });
-  const token = t.linkIn((await t.outbox())[0].text, '/invitation/');
+  await invite(owner, pid, 'lab@demo.grisaille.test', 'editor', 'lab');
+  const token = await lastInvitationToken();
   const guest = await t.agent();
   expect((await guest.get(`/api/invitations/${token}`)).body.invitation.hasAccount).toBe(true);
   const wrong = await guest.post(`/api/invitations/${token}/accept`).send({ password: 'not-the-password' });
@@ -60,13 +66,13 @@ it('an existing account accepts with its own password', async () => {
 });
 
 it('refuses an expired invitation, and a second invitation to a member', async () => {
-  const owner = await t.agent('camera@demo.grisaille.test');
+  const owner = await signInOwner();
   const pid = t.demoProductionId;
-  const dup = await owner.post(`/api/productions/${pid}/invitations`).send({ email: 'makeup@demo.grisaille.test', role: 'viewer', department: 'makeup' });
+  const dup = await invite(owner, pid, 'makeup@demo.grisaille.test', 'viewer', 'makeup');
   expect(dup.status).toBe(409);
   expect(dup.body.error.field).toBe('email');
-  await owner.post(`/api/productions/${pid}/invitations`).send({ email: 'late@example.test', role: 'viewer', department: 'art' });
-  const token = t.linkIn((await t.outbox())[0].text, '/invitation/');
+  await invite(owner, pid, 'late@example.test', 'viewer', 'art');
+  const token = await lastInvitationToken();
   await t.ctx.ds.getRepository(Invitation).update({ email: 'late@example.test' }, { expiresAt: new Date(Date.now() - 1000) });
   const guest = await t.agent();
   expect((await guest.get(`/api/invitations/${token}`)).status).toBe(404);
@@ -75,7 +81,7 @@ it('refuses an expired invitation, and a second invitation to a member', async (
 });
 
 it('owners change roles, but the last owner stays', async () => {
-  const owner = await t.agent('camera@demo.grisaille.test');
+  const owner = await signInOwner();
   const pid = t.demoProductionId;
   const members = (await owner.get(`/api/productions/${pid}/members`)).body.members as { id: number; role: string; user: { email: string } }[];
   const me = members.find((m) => m.user.email === 'camera@demo.grisaille.test')!;

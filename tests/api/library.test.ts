@@ -4,7 +4,7 @@
  * nothing; a curve used by a look cannot be deleted.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApp, type Agent, type TestApp } from '../helpers/api';
+import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import { Curve } from '../../server/db/entities/curve.entity';
 
 /** One shared tolerance for this file: values are exact decimal inputs, read back after float arithmetic. */
@@ -29,11 +29,7 @@ const GREEN_GEL_PERCENT = ['Invented test gel', 'nm;T (%)', ...Array.from({ leng
 })].join('\n');
 
 beforeAll(async () => {
-  t = await startTestApp();
-  base = `/api/productions/${t.demoProductionId}`;
-  editor = await t.agent('gaffer@demo.grisaille.test');
-  contributor = await t.agent('costume@demo.grisaille.test');
-  viewer = await t.agent('producer@demo.grisaille.test');
+  ({ t, base, as: { editor, contributor, viewer } } = await startDemoAs({ editor: 'gaffer', contributor: 'costume', viewer: 'producer' }));
 });
 afterAll(async () => t?.close());
 

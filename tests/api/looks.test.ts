@@ -3,7 +3,7 @@
  * analysis (curves, filter factor for the look's light and for daylight and tungsten).
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApp, type Agent, type TestApp } from '../helpers/api';
+import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import { Look } from '../../server/db/entities/look.entity';
 import { Board } from '../../server/db/entities/board.entity';
 
@@ -27,12 +27,7 @@ let base: string;
 const pan = { light: { source: { id: 'tungsten-3200' } }, filters: [], medium: { source: { id: 'panchromatic' } } };
 
 beforeAll(async () => {
-  t = await startTestApp();
-  base = `/api/productions/${t.demoProductionId}`;
-  owner = await t.agent('camera@demo.grisaille.test');
-  editor = await t.agent('gaffer@demo.grisaille.test');
-  contributor = await t.agent('makeup@demo.grisaille.test');
-  viewer = await t.agent('lab@demo.grisaille.test');
+  ({ t, base, as: { owner, editor, contributor, viewer } } = await startDemoAs({ owner: 'camera', editor: 'gaffer', contributor: 'makeup', viewer: 'lab' }));
 });
 afterAll(async () => t?.close());
 

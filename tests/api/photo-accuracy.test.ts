@@ -2,17 +2,17 @@ import fs from 'node:fs';
 import path from 'node:path';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApp, type Agent, type TestApp } from '../helpers/api';
+import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import { iccDescription } from '../../server/modules/photos/icc-description';
 import { getUpsampleTable } from '../../server/services/upsample-table';
 import { PARALLEL_MIN_PIXELS, passPool } from '../../server/services/photo-pass-pool';
-import { nodeExposures } from '../../shared/spectral/lut';
+import { nodeExposures, nodeReflectances } from '../../shared/spectral/node-spectra';
 import { interpolateAtCell, locateCell } from '../../shared/spectral/upsample-table';
 import { prepareStack, resolveFilter, resolveLight, resolveMedium } from '../../shared/spectral/compute';
 import { buildTonePipeline } from '../../shared/tone/tone-pipeline';
 import { srgbDecode } from '../../shared/tone/print';
 import { random } from '../unit/spectral/fixtures';
-import { TEST_LOOK, colorants, download, grey16, iecDecode, invert3, mul3, paraGamma, render as renderOf, sceneJpeg, upload as uploadOf, withIccp } from './photo-fixtures';
+import { colorants, createTestLook, download, grey16, iecDecode, invert3, mul3, paraGamma, render as renderOf, sceneJpeg, upload as uploadOf, withIccp } from './photo-fixtures';
 
 /** Colour management of uploads, and the renderer's table against the engine's per-pixel computation. */
 
@@ -51,13 +51,9 @@ let pid: number;
 let lookId: number;
 
 beforeAll(async () => {
-  t = await startTestApp();
-  pid = t.demoProductionId;
-  makeup = await t.agent('makeup@demo.grisaille.test');
-  const camera = await t.agent('camera@demo.grisaille.test');
-  const r = await camera.post(`/api/productions/${pid}/looks`).send({ name: 'Photo test: red long-pass', ...TEST_LOOK });
-  expect(r.status).toBe(201);
-  lookId = r.body.look.id;
+  const s = await startDemoAs({ makeup: 'makeup', camera: 'camera' });
+  ({ t, pid, as: { makeup } } = s);
+  lookId = await createTestLook(s.as.camera, pid);
 });
 afterAll(async () => t?.close());
 
@@ -126,7 +122,7 @@ describe('the table against the engine’s per-pixel computation', () => {
   async function engineGrey() {
     const table = await getUpsampleTable(t.dataDir);
     const stack = prepareStack({ light: resolveLight({ id: 'tungsten-3200' }), filters: [resolveFilter({ id: 'red-590' })], medium: resolveMedium({ id: 'panchromatic' }) });
-    const nodeM = nodeExposures(stack, table);
+    const nodeM = nodeExposures(nodeReflectances(table), stack.mediumWeights);
     const pipe = buildTonePipeline({ mediumId: 'medium.panchromatic', settings: { printGrade: 3 } });
     return (r: number, g: number, b: number) => {
       const cell = locateCell(table, srgbDecode(r), srgbDecode(g), srgbDecode(b));

@@ -18,6 +18,13 @@ export const TEST_LOOK = {
   tone: { printGrade: 3 },
 };
 
+/** Saves TEST_LOOK in the production as `agent` (an editor or above); answers its id. */
+export async function createTestLook(agent: Agent, pid: number): Promise<number> {
+  const r = await agent.post(`/api/productions/${pid}/looks`).send({ name: 'Photo test: red long-pass', ...TEST_LOOK });
+  expect(r.status).toBe(201);
+  return r.body.look.id;
+}
+
 export const photosUrl = (pid: number) => `/api/productions/${pid}/photos`;
 
 /** supertest parser that keeps a binary body as a Buffer. */

@@ -2,12 +2,12 @@ import fs from 'node:fs';
 import path from 'node:path';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApp, type Agent, type TestApp } from '../helpers/api';
+import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import { Photo } from '../../server/db/entities/photo.entity';
 import { photosService } from '../../server/modules/photos/photos.router';
 import { mediumToneDefaults } from '../../shared/tone/media-tone';
 import { DEMO_SCENES } from '../../server/db/seed-content/photos';
-import { TEST_LOOK, binary, download, grey16, photosUrl, pngBomb, render as renderOf, sceneJpeg, upload as uploadOf } from './photo-fixtures';
+import { TEST_LOOK, binary, createTestLook, download, grey16, photosUrl, pngBomb, render as renderOf, sceneJpeg, upload as uploadOf } from './photo-fixtures';
 
 /** Uploads, refusals (nothing stored), roles, renders and the cache. Accuracy: photo-accuracy.test.ts. */
 
@@ -20,15 +20,8 @@ let pid: number;
 let lookId: number;
 
 beforeAll(async () => {
-  t = await startTestApp();
-  pid = t.demoProductionId;
-  makeup = await t.agent('makeup@demo.grisaille.test');
-  camera = await t.agent('camera@demo.grisaille.test');
-  lab = await t.agent('lab@demo.grisaille.test');
-  costume = await t.agent('costume@demo.grisaille.test');
-  const r = await camera.post(`/api/productions/${pid}/looks`).send({ name: 'Photo test: red long-pass', ...TEST_LOOK });
-  expect(r.status).toBe(201);
-  lookId = r.body.look.id;
+  ({ t, pid, as: { makeup, camera, lab, costume } } = await startDemoAs({ makeup: 'makeup', camera: 'camera', lab: 'lab', costume: 'costume' }));
+  lookId = await createTestLook(camera, pid);
 });
 afterAll(async () => t?.close());
 

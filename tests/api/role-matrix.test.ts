@@ -10,7 +10,8 @@ import { productionRoutes, type ProductionRoute } from '../../server/modules/rou
 import { Membership } from '../../server/db/entities/membership.entity';
 import { Production } from '../../server/db/entities/production.entity';
 import { User } from '../../server/db/entities/user.entity';
-import { ROLES, roleAtLeast, type Role } from '../../shared/schemas/roles';
+import { ROLES, type Role } from '../../shared/schemas/roles';
+import { roleAtLeast } from '../../shared/policy/department';
 
 let t: TestApp;
 let pid: number;

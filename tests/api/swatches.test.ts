@@ -3,7 +3,7 @@
  * input with nothing written; the tones of one swatch through every look.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApp, type Agent, type TestApp } from '../helpers/api';
+import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import { Swatch } from '../../server/db/entities/swatch.entity';
 
 /** Default tolerance of this file, stops. */
@@ -25,12 +25,7 @@ const count = () => t.ctx.ds.getRepository(Swatch).count();
 const hexSwatch = (name: string, hex: string, department?: string) => ({ name, ...(department ? { department } : {}), origin: { type: 'colour', colour: { space: 'hex', hex } } });
 
 beforeAll(async () => {
-  t = await startTestApp();
-  base = `/api/productions/${t.demoProductionId}`;
-  makeup = await t.agent('makeup@demo.grisaille.test');
-  costume = await t.agent('costume@demo.grisaille.test');
-  editor = await t.agent('gaffer@demo.grisaille.test');
-  viewer = await t.agent('producer@demo.grisaille.test');
+  ({ t, base, as: { makeup, costume, editor, viewer } } = await startDemoAs({ makeup: 'makeup', costume: 'costume', editor: 'gaffer', viewer: 'producer' }));
 });
 afterAll(async () => t?.close());
 

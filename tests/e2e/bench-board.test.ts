@@ -5,18 +5,15 @@
  */
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { shot as shotAt, signIn, useAppAndBrowser } from '../helpers/browser';
+import { openSignedIn, shot as shotAt, useAppAndBrowser } from '../helpers/browser';
 
 const env = useAppAndBrowser();
 let pid = 0;
 
 async function page(email: string): Promise<{ p: Page; errors: string[] }> {
-  const p = await env.browser.newPage({ viewport: { width: 1366, height: 900 } });
-  const errors: string[] = [];
-  p.on('pageerror', (e) => errors.push(e.message));
-  await signIn(p, env.app.url, email);
-  pid = await p.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
-  return { p, errors };
+  const signedIn = await openSignedIn(env, email, { viewport: { width: 1366, height: 900 } });
+  pid = signedIn.pid;
+  return { p: signedIn.page, errors: signedIn.errors };
 }
 
 /** Full-page screenshot from the top (the sticky header would otherwise sit mid-page). */

@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { shot, signIn, SHOTS_DIR, useAppAndBrowser } from '../helpers/browser';
+import { openSignedIn, shot, SHOTS_DIR, useAppAndBrowser } from '../helpers/browser';
 
 /**
  * The camera department's path through exposure: the bench's EI chain and light level follow a filter
@@ -32,11 +32,7 @@ async function eiChangesFrom(page: Page, before: number) {
 }
 
 it('the bench shows the EI chain and light level, and both follow the filter, the light and the T-stop', async () => {
-  const page = await env.browser.newPage({ viewport: { width: 1366, height: 900 } });
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
-  await signIn(page, env.app.url, 'camera@demo.grisaille.test');
-  const pid = await page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
+  const { page, errors, pid } = await openSignedIn(env, 'camera@demo.grisaille.test', { viewport: { width: 1366, height: 900 } });
   const looks: { id: number; name: string; filters: unknown[] }[] = (await page.evaluate((p) => fetch(`/api/productions/${p}/looks`).then((r) => r.json()), pid)).looks;
   const plain = looks.find((l) => l.name === 'Panchromatic, no filter')!;
   const cyan = looks.find((l) => l.name === 'Panchromatic + red-absorbing cyan')!;
@@ -93,11 +89,7 @@ it('the bench shows the EI chain and light level, and both follow the filter, th
 });
 
 it('the exposure sheet opens from the bench, prints, and downloads as a PDF that reads', async () => {
-  const page = await env.browser.newPage({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
-  await signIn(page, env.app.url, 'lab@demo.grisaille.test');
-  const pid = await page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
+  const { page, errors, pid } = await openSignedIn(env, 'lab@demo.grisaille.test', { viewport: { width: 1280, height: 900 }, acceptDownloads: true });
   const looks: { id: number; name: string }[] = (await page.evaluate((p) => fetch(`/api/productions/${p}/looks`).then((r) => r.json()), pid)).looks;
   const cyan = looks.find((l) => l.name === 'Panchromatic + red-absorbing cyan')!;
   await page.goto(`${env.app.url}/p/${pid}/bench/${cyan.id}`);

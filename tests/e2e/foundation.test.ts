@@ -1,12 +1,11 @@
 import { expect, it } from 'vitest';
-import { shot, signIn, useAppAndBrowser } from '../helpers/browser';
+import { openSignedIn, pageErrors, shot, signIn, useAppAndBrowser } from '../helpers/browser';
 
 const env = useAppAndBrowser();
 
 it('the cinematographer signs in, opens the demo production and its team, and signs out', async () => {
   const page = await env.browser.newPage({ viewport: { width: 1366, height: 850 } });
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
+  const errors = pageErrors(page);
   await page.goto(`${env.app.url}/`);
   await page.waitForURL(/\/sign-in/);
   await shot(page, 'foundation-01-sign-in');
@@ -29,9 +28,7 @@ it('the cinematographer signs in, opens the demo production and its team, and si
 });
 
 it('a viewer sees the team but not the invitation form', async () => {
-  const page = await env.browser.newPage({ viewport: { width: 1366, height: 850 } });
-  await signIn(page, env.app.url, 'producer@demo.grisaille.test');
-  const pid = await page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
+  const { page, pid } = await openSignedIn(env, 'producer@demo.grisaille.test', { viewport: { width: 1366, height: 850 } });
   await page.goto(`${env.app.url}/p/${pid}/team`);
   await page.getByRole('cell', { name: 'camera@demo.grisaille.test' }).waitFor();
   expect(await page.getByRole('button', { name: 'Send invitation' }).count()).toBe(0);

@@ -1,6 +1,6 @@
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { shot, signIn, useAppAndBrowser } from '../helpers/browser';
+import { openSignedIn, shot, useAppAndBrowser } from '../helpers/browser';
 import { DEMO_SCENES, demoSceneJpeg } from '../../server/db/seed-content/photos';
 
 /** The preview must be at least this wide (issue 5). */
@@ -55,11 +55,7 @@ function pixelAt(page: Page, fx: number, fy: number) {
 }
 
 it('a makeup artist uploads a photo, retunes the look live, wipes, compares, renders it and keeps a sampled region as a swatch', async () => {
-  const page = await env.browser.newPage({ viewport: { width: 1440, height: 900 } });
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
-  await signIn(page, env.app.url, 'makeup@demo.grisaille.test');
-  const pid = await page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
+  const { page, errors, pid } = await openSignedIn(env, 'makeup@demo.grisaille.test', { viewport: { width: 1440, height: 900 } });
   await page.goto(`${env.app.url}/p/${pid}`);
   await page.getByRole('navigation', { name: 'Production' }).getByRole('link', { name: 'Photos' }).click();
   await page.getByRole('heading', { name: 'Photos', level: 1 }).waitFor();
@@ -135,9 +131,7 @@ it('a makeup artist uploads a photo, retunes the look live, wipes, compares, ren
 });
 
 it('without WebGL2 the worker renders the preview', async () => {
-  const page = await env.browser.newPage({ viewport: { width: 1440, height: 900 } });
-  await signIn(page, env.app.url, 'lab@demo.grisaille.test');
-  const pid = await page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
+  const { page, pid } = await openSignedIn(env, 'lab@demo.grisaille.test', { viewport: { width: 1440, height: 900 } });
   const photos = await page.evaluate((p) => fetch(`/api/productions/${p}/photos`).then((r) => r.json()), pid);
   const still = photos.photos.find((p: { name: string }) => p.name === DEMO_SCENES[1].name);
   await page.goto(`${env.app.url}/p/${pid}/photos?renderer=cpu&photo=${still.id}`);

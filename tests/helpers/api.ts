@@ -1,4 +1,6 @@
 import fs from 'node:fs';
+import { upsampleCacheFile } from '../../server/services/upsample-table';
+import { UPSAMPLE_TABLE_FILE_ENV } from '../setup/upsample-table-file';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
@@ -25,6 +27,12 @@ export interface TestApp extends GrisailleApp {
 export async function startTestApp(opts: { seed?: boolean; env?: Partial<Env> } = {}): Promise<TestApp> {
   process.env.NODE_ENV = 'test';
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'grisaille-test-'));
+  // the run's upsampling table (tests/setup), put where the server caches it, so no test file rebuilds it
+  const shared = process.env[UPSAMPLE_TABLE_FILE_ENV];
+  if (shared && fs.existsSync(shared)) {
+    fs.mkdirSync(path.dirname(upsampleCacheFile(dataDir)), { recursive: true });
+    fs.copyFileSync(shared, upsampleCacheFile(dataDir));
+  }
   const g = await createApp({ env: { dataDir, demo: true, nodeEnv: 'test', authRateLimit: 10_000, writeRateLimit: 100_000, publicUrl: 'http://localhost:5178', ...opts.env }, seed: opts.seed ?? true, serveClient: false });
   const prod = await g.ctx.ds.getRepository(Production).findOneBy({ name: DEMO_PRODUCTION_NAME });
   const app: Express = g.app;
@@ -57,4 +65,38 @@ export async function startTestApp(opts: { seed?: boolean; env?: Partial<Env> } 
       fs.rmSync(dataDir, { recursive: true, force: true });
     },
   };
+}
+
+/** A demo user's e-mail from the part before the @, e.g. `demoEmail('camera')` (the accounts of server/db/seed.ts). */
+const demoEmail = (who: string) => `${who}@demo.grisaille.test`;
+
+export interface DemoSession<K extends string> {
+  t: TestApp;
+  /** the demo production's id */
+  pid: number;
+  /** `/api/productions/<pid>` */
+  base: string;
+  /** one signed-in agent per key */
+  as: Record<K, Agent>;
+}
+
+/**
+ * The app with the demo production, signed in as each demo user named: `{ owner: 'camera', viewer: 'lab' }`
+ * gives `as.owner` signed in as camera@demo.grisaille.test and `as.viewer` as lab@demo.grisaille.test.
+ */
+export async function startDemoAs<K extends string>(who: Record<K, string>): Promise<DemoSession<K>> {
+  const t = await startTestApp();
+  const as = {} as Record<K, Agent>;
+  for (const [key, user] of Object.entries(who) as [K, string][]) as[key] = await t.agent(demoEmail(user));
+  return { t, pid: t.demoProductionId, base: `/api/productions/${t.demoProductionId}`, as };
+}
+
+/** Runs `fn` against an app of its own (e.g. with other limits or no seed) and closes it afterwards. */
+export async function withTestApp(opts: Parameters<typeof startTestApp>[0], fn: (app: TestApp) => Promise<void>): Promise<void> {
+  const app = await startTestApp(opts);
+  try {
+    await fn(app);
+  } finally {
+    await app.close();
+  }
 }

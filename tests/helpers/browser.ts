@@ -89,6 +89,34 @@ export async function signIn(page: Page, url: string, email: string, password = 
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
 }
 
+/** Collects the page's uncaught errors; a test ends with `expect(errors).toEqual([])`. */
+export function pageErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  return errors;
+}
+
+/** The id of the first production the signed-in user sees (the demo production in a fresh app). */
+export function firstProductionId(page: Page): Promise<number> {
+  return page.evaluate(() => fetch('/api/productions').then((r) => r.json()).then((b) => b.productions[0].id));
+}
+
+export interface SignedInPage {
+  page: Page;
+  /** the page's uncaught errors (see pageErrors) */
+  errors: string[];
+  /** the demo production's id */
+  pid: number;
+}
+
+/** A new page (options as for `browser.newPage`) signed in as `email` through the real form, watching for errors. */
+export async function openSignedIn(env: { app: RunningApp; browser: Browser }, email: string, options: Parameters<Browser['newPage']>[0]): Promise<SignedInPage> {
+  const page = await env.browser.newPage(options);
+  const errors = pageErrors(page);
+  await signIn(page, env.app.url, email);
+  return { page, errors, pid: await firstProductionId(page) };
+}
+
 /**
  * Registers beforeAll/afterAll that start the built app and Chromium for a test file, and stop them.
  * Read `env.app` and `env.browser` inside the tests.

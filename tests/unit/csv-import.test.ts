@@ -1,18 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { CurveTableError, lineOfPair, parseCurveTable } from '../../shared/import/curve-table';
+import { thrown } from './spectral/thrown';
 
 // Inputs are small tables written here; the expected numbers are the ones written in each input.
 const TOL = 1e-12; // exact decimal reading; one shared tolerance for this file
 
-function errorOf(text: string): CurveTableError {
-  try {
-    parseCurveTable(text);
-  } catch (e) {
-    if (e instanceof CurveTableError) return e;
-    throw e;
-  }
-  throw new Error('expected a CurveTableError');
-}
+const errorOf = (text: string) => thrown(CurveTableError, () => parseCurveTable(text));
 
 describe('good files', () => {
   it('reads a plain comma-separated table', () => {

@@ -1,6 +1,5 @@
-import { Column, CreateDateColumn, Entity, Index, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn, type Relation } from 'typeorm';
-import type { Production } from './production.entity';
-import type { User } from './user.entity';
+import { Column, Entity, Index } from 'typeorm';
+import { AuthoredItem } from './production-item';
 import type { CurveKind, CurveOrigin } from '../../../shared/schemas/curve';
 
 /**
@@ -11,18 +10,11 @@ import type { CurveKind, CurveOrigin } from '../../../shared/schemas/curve';
  */
 @Entity('curves')
 @Index(['production', 'kind'])
-export class Curve {
-  @PrimaryGeneratedColumn({ type: 'integer' }) id: number;
-  @ManyToOne('Production', { onDelete: 'CASCADE', nullable: false }) production: Relation<Production>;
+export class Curve extends AuthoredItem {
   @Column({ type: 'varchar', length: 12 }) kind: CurveKind;
-  @Column({ type: 'varchar', length: 120 }) name: string;
-  @Column({ type: 'text', default: '' }) notes: string;
   @Column({ type: 'simple-json' }) origin: CurveOrigin;
   /** `[nm, value]` on the working grid, engine basis */
   @Column({ type: 'simple-json' }) samples: [number, number][];
   /** one line saying where the curve came from */
   @Column({ type: 'text', default: '' }) source: string;
-  @ManyToOne('User', { onDelete: 'SET NULL', nullable: true }) createdBy: Relation<User> | null;
-  @CreateDateColumn({ type: 'datetime' }) createdAt: Date;
-  @UpdateDateColumn({ type: 'datetime' }) updatedAt: Date;
 }

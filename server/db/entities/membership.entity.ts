@@ -7,8 +7,8 @@ import type { Role, Department } from '../../../shared/schemas/roles';
 @Unique(['user', 'production'])
 export class Membership {
   @PrimaryGeneratedColumn({ type: 'integer' }) id: number;
-  @ManyToOne('User', 'memberships', { onDelete: 'CASCADE', nullable: false }) user: Relation<User>;
-  @ManyToOne('Production', 'memberships', { onDelete: 'CASCADE', nullable: false }) production: Relation<Production>;
+  @ManyToOne('User', { onDelete: 'CASCADE', nullable: false }) user: Relation<User>;
+  @ManyToOne('Production', { onDelete: 'CASCADE', nullable: false }) production: Relation<Production>;
   @Column({ type: 'varchar', length: 20 }) role: Role;
   @Column({ type: 'varchar', length: 20 }) department: Department;
   @CreateDateColumn({ type: 'datetime' }) createdAt: Date;

@@ -1,5 +1,5 @@
-import { Column, CreateDateColumn, Entity, Index, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn, type Relation } from 'typeorm';
-import type { Production } from './production.entity';
+import { Column, Entity, Index, type Relation } from 'typeorm';
+import { CreatorColumn, DepartmentColumn, ProductionItem } from './production-item';
 import type { User } from './user.entity';
 import type { Department } from '../../../shared/schemas/roles';
 import type { PhotoFormat } from '../../../shared/schemas/photo';
@@ -11,13 +11,9 @@ import type { PhotoFormat } from '../../../shared/schemas/photo';
  */
 @Entity('photos')
 @Index(['production', 'createdAt'])
-export class Photo {
-  @PrimaryGeneratedColumn({ type: 'integer' }) id: number;
-  @ManyToOne('Production', { onDelete: 'CASCADE', nullable: false }) production: Relation<Production>;
-  @Column({ type: 'varchar', length: 120 }) name: string;
-  @Column({ type: 'text', default: '' }) notes: string;
+export class Photo extends ProductionItem {
   /** the department of the member who uploaded it (contributors edit their own department's photos) */
-  @Column({ type: 'varchar', length: 20 }) department: Department;
+  @DepartmentColumn() department: Department;
   /** the format read from the content: jpeg, png, tiff or webp */
   @Column({ type: 'varchar', length: 10 }) format: PhotoFormat;
   /** bits per channel of the original: 8 or 16 */
@@ -38,7 +34,5 @@ export class Photo {
   @Column({ type: 'varchar', length: 200, default: '' }) originalName: string;
   /** marks invented demo content */
   @Column({ type: 'boolean', default: false }) isDemo: boolean;
-  @ManyToOne('User', { onDelete: 'SET NULL', nullable: true }) uploadedBy: Relation<User> | null;
-  @CreateDateColumn({ type: 'datetime' }) createdAt: Date;
-  @UpdateDateColumn({ type: 'datetime' }) updatedAt: Date;
+  @CreatorColumn() uploadedBy: Relation<User> | null;
 }

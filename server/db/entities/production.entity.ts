@@ -1,5 +1,4 @@
-import { Column, CreateDateColumn, Entity, OneToMany, PrimaryGeneratedColumn, type Relation } from 'typeorm';
-import type { Membership } from './membership.entity';
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
 
 @Entity('productions')
 export class Production {
@@ -9,5 +8,4 @@ export class Production {
   /** marks invented demo content */
   @Column({ type: 'boolean', default: false }) isDemo: boolean;
   @CreateDateColumn({ type: 'datetime' }) createdAt: Date;
-  @OneToMany('Membership', 'production') memberships: Relation<Membership[]>;
 }

@@ -1,5 +1,4 @@
-import { Column, CreateDateColumn, Entity, OneToMany, PrimaryGeneratedColumn, type Relation } from 'typeorm';
-import type { Membership } from './membership.entity';
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
 
 @Entity('users')
 export class User {
@@ -10,5 +9,4 @@ export class User {
   @Column({ type: 'varchar', length: 300 }) passwordHash: string;
   @Column({ type: 'boolean', default: false }) isAdmin: boolean;
   @CreateDateColumn({ type: 'datetime' }) createdAt: Date;
-  @OneToMany('Membership', 'user') memberships: Relation<Membership[]>;
 }

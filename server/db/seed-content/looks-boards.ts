@@ -23,36 +23,23 @@ interface DemoLook {
   medium: LookMedium;
 }
 
+/** A demo look from built-in ids: the medium, the filters on the lens (in order) and the light (default 3200 K tungsten). */
+function demoLook(name: string, notes: string, mediumId: string, lensFilterIds: string[] = [], lightId = 'tungsten-3200'): DemoLook {
+  return {
+    name,
+    notes,
+    light: { source: { id: lightId } },
+    filters: lensFilterIds.map((id) => ({ filter: { source: { id } }, on: 'lens' })),
+    medium: { source: { id: mediumId } },
+  };
+}
+
 /** The demo looks: a 1930s studio lit with tungsten, on three media/filter choices, and one daylight exterior. */
 export const DEMO_LOOKS: DemoLook[] = [
-  {
-    name: 'Panchromatic, no filter',
-    notes: 'Studio interiors under 3200 K tungsten on the panchromatic negative. The reference look. (Invented demo.)',
-    light: { source: { id: 'tungsten-3200' } },
-    filters: [],
-    medium: { source: { id: 'panchromatic' } },
-  },
-  {
-    name: 'Panchromatic + red-absorbing cyan',
-    notes: 'The same, with the red-absorbing cyan on the lens: reds and warm skin go darker, lips read strongly. (Invented demo.)',
-    light: { source: { id: 'tungsten-3200' } },
-    filters: [{ filter: { source: { id: 'cyan-530' } }, on: 'lens' }],
-    medium: { source: { id: 'panchromatic' } },
-  },
-  {
-    name: 'Orthochromatic',
-    notes: 'A red-blind emulsion under the same tungsten: the period rendering of reds as near black. (Invented demo.)',
-    light: { source: { id: 'tungsten-3200' } },
-    filters: [],
-    medium: { source: { id: 'orthochromatic' } },
-  },
-  {
-    name: 'Daylight exterior, yellow',
-    notes: 'Village exteriors in D65 daylight through the yellow long-pass, for the snow and sky. (Invented demo.)',
-    light: { source: { id: 'd65' } },
-    filters: [{ filter: { source: { id: 'yellow-490' } }, on: 'lens' }],
-    medium: { source: { id: 'panchromatic' } },
-  },
+  demoLook('Panchromatic, no filter', 'Studio interiors under 3200 K tungsten on the panchromatic negative. The reference look. (Invented demo.)', 'panchromatic'),
+  demoLook('Panchromatic + red-absorbing cyan', 'The same, with the red-absorbing cyan on the lens: reds and warm skin go darker, lips read strongly. (Invented demo.)', 'panchromatic', ['cyan-530']),
+  demoLook('Orthochromatic', 'A red-blind emulsion under the same tungsten: the period rendering of reds as near black. (Invented demo.)', 'orthochromatic'),
+  demoLook('Daylight exterior, yellow', 'Village exteriors in D65 daylight through the yellow long-pass, for the snow and sky. (Invented demo.)', 'panchromatic', ['yellow-490'], 'd65'),
 ];
 
 /** An invented smooth reflectance at 10 nm: base + rise·logistic((nm − edge)/width); made up for the demo, not measured. */

@@ -34,6 +34,29 @@ export interface DemoScene {
   svg: () => string;
 }
 
+/** The demo swatch colours the scenes are painted with (one table for every scene). */
+const PAINT = {
+  wall: c('Workshop wall, warm white', '#ece4d2'),
+  panel: c('Duck-egg blue', '#a9c4c0'),
+  lacquer: c('Oxblood lacquer', '#5e1e1e'),
+  brass: c('Ochre limewash', '#c9a05a'),
+  red: c('Lacquer red', '#b0302a'),
+  silk: c('Burgundy silk', '#7a2335'),
+  navy: c('Navy wool coat', '#2b3552'),
+  sage: c('Sage green', '#9aa68a'),
+  forest: c('Forest green', '#2f4a35'),
+  cream: c('Cream linen', '#e6dcc3'),
+  mustard: c('Mustard tweed', '#b8923a'),
+  skin: c('Base, warm medium', '#c99470'),
+  fair: c('Base, fair', '#e8c4a8'),
+  lip: c('Lip colour, deep rose', '#a33b4a'),
+  cheek: c('Cheek, flushed', '#d98a80'),
+  shadow: c('Eye shadow, brown', '#6b4a3a'),
+  hair: c('Black wool', '#1e1c1c'),
+  bruise: c('Greasepaint, bruise blue', '#4f5a7a'),
+  back: c('Charcoal', '#3a3a3c'),
+};
+
 function chartSvg(): string {
   const rows = DEMO_BOARDS.map((b) => b.swatches.filter((s) => typeof s[1] === 'string').map((s) => s[1] as string));
   const cell = 100;
@@ -51,17 +74,7 @@ function chartSvg(): string {
 }
 
 function stillLifeSvg(): string {
-  const wall = c('Workshop wall, warm white', '#ece4d2');
-  const panel = c('Duck-egg blue', '#a9c4c0');
-  const lacquer = c('Oxblood lacquer', '#5e1e1e');
-  const brass = c('Ochre limewash', '#c9a05a');
-  const red = c('Lacquer red', '#b0302a');
-  const silk = c('Burgundy silk', '#7a2335');
-  const navy = c('Navy wool coat', '#2b3552');
-  const sage = c('Sage green', '#9aa68a');
-  const forest = c('Forest green', '#2f4a35');
-  const cream = c('Cream linen', '#e6dcc3');
-  const mustard = c('Mustard tweed', '#b8923a');
+  const { wall, panel, lacquer, brass, red, silk, navy, sage, forest, cream, mustard } = PAINT;
   return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 1200 800">
   <defs>
     <linearGradient id="wall" x1="0" y1="0" x2="1" y2="0.3"><stop offset="0" stop-color="${wall}"/><stop offset="1" stop-color="#9d9486"/></linearGradient>
@@ -100,16 +113,7 @@ function stillLifeSvg(): string {
 }
 
 function portraitSvg(): string {
-  const skin = c('Base, warm medium', '#c99470');
-  const fair = c('Base, fair', '#e8c4a8');
-  const lip = c('Lip colour, deep rose', '#a33b4a');
-  const cheek = c('Cheek, flushed', '#d98a80');
-  const shadow = c('Eye shadow, brown', '#6b4a3a');
-  const hair = c('Black wool', '#1e1c1c');
-  const coat = c('Navy wool coat', '#2b3552');
-  const bruise = c('Greasepaint, bruise blue', '#4f5a7a');
-  const back = c('Charcoal', '#3a3a3c');
-  const collar = c('Cream linen', '#e6dcc3');
+  const { skin, fair, lip, cheek, shadow, hair, navy: coat, bruise, back, cream: collar } = PAINT;
   return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 900 1200">
   <defs>
     <radialGradient id="bg" cx="0.6" cy="0.3" r="0.9"><stop offset="0" stop-color="#6a6a6e"/><stop offset="1" stop-color="${back}"/></radialGradient>

@@ -1,10 +1,10 @@
 import { Router } from 'express';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
-import { handle, productionRoute, pid, idParam } from '../route-registry';
+import { handle, productionRoute, pid, idParam, itemRoutes } from '../route-registry';
 import { boardCreateSchema, boardTonesQuerySchema, boardUpdateSchema } from '../../../shared/schemas/board';
 import { BoardsService } from './boards.service';
-import { ToneService } from './tone.service';
+import { ToneService } from '../tones/tone.service';
 import { zodToInvalid } from '../../middleware/validate';
 
 /** Boards: viewers read; contributors create and edit their own department's; editors and owners any. */
@@ -17,20 +17,11 @@ export function boardsRouter(ctx: AppContext): Router {
   productionRoute(r, ctx, 'post', '/boards', 'contributor', validate(boardCreateSchema), handle(async (req, res) => {
     res.status(201).json({ board: await svc.create(req.membership!, req.body) });
   }));
-  productionRoute(r, ctx, 'get', '/boards/:boardId', 'viewer', handle(async (req, res) => {
-    res.json({ board: await svc.get(pid(req), idParam(req.params.boardId, 'Board')) });
-  }));
   productionRoute(r, ctx, 'get', '/boards/:boardId/tones', 'viewer', handle(async (req, res) => {
     const q = boardTonesQuerySchema.safeParse(req.query);
     if (!q.success) throw zodToInvalid(q.error);
     res.json({ tones: await tones.boardTones(pid(req), idParam(req.params.boardId, 'Board'), q.data) });
   }));
-  productionRoute(r, ctx, 'patch', '/boards/:boardId', 'contributor', validate(boardUpdateSchema), handle(async (req, res) => {
-    res.json({ board: await svc.update(req.membership!, idParam(req.params.boardId, 'Board'), req.body) });
-  }));
-  productionRoute(r, ctx, 'delete', '/boards/:boardId', 'contributor', handle(async (req, res) => {
-    await svc.remove(req.membership!, idParam(req.params.boardId, 'Board'));
-    res.status(204).end();
-  }));
+  itemRoutes(r, ctx, { plural: 'boards', param: 'boardId', key: 'board', what: 'Board', read: 'viewer', write: 'contributor', updateSchema: boardUpdateSchema }, svc);
   return r;
 }

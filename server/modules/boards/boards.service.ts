@@ -1,13 +1,15 @@
 import { In, type DataSource, type EntityManager } from 'typeorm';
+import { authoredView } from '../authored';
+import { findInProduction } from '../../db/in-production';
 import { Board } from '../../db/entities/board.entity';
 import { Look } from '../../db/entities/look.entity';
 import { Swatch } from '../../db/entities/swatch.entity';
 import type { Membership } from '../../db/entities/membership.entity';
-import { InvalidError, NotFoundError } from '../../errors';
+import { InvalidError } from '../../errors';
 import type { BoardView } from '../../../shared/schemas/board';
 import { boardCreateSchema, boardUpdateSchema } from '../../../shared/schemas/board';
 import type { z } from 'zod';
-import { assertDepartmentAccess } from '../swatches/department-access';
+import { assertDepartmentAccess } from '../../policy/department-access';
 
 type CreateInput = z.infer<typeof boardCreateSchema>;
 type UpdateInput = z.infer<typeof boardUpdateSchema>;
@@ -22,9 +24,7 @@ export function boardView(b: Board): BoardView {
     swatchIds: (b.swatches ?? []).map((s) => s.id).sort((x, y) => x - y),
     mergeStops: b.mergeStops,
     mergeDeltaE: b.mergeDeltaE,
-    createdBy: b.createdBy ? { id: b.createdBy.id, name: b.createdBy.name } : null,
-    createdAt: new Date(b.createdAt).toISOString(),
-    updatedAt: new Date(b.updatedAt).toISOString(),
+    ...authoredView(b),
   };
 }
 
@@ -59,8 +59,7 @@ export class BoardsService {
   }
 
   async entity(productionId: number, id: number, em: EntityManager = this.ds.manager): Promise<Board> {
-    const b = await em.findOne(Board, { where: { id, production: { id: productionId } }, relations: { swatches: true, createdBy: true } });
-    if (!b) throw new NotFoundError('Board');
+    const b = await findInProduction(em, Board, productionId, id, 'Board', { swatches: true, createdBy: true });
     return b;
   }
 

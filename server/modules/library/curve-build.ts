@@ -11,7 +11,7 @@ import { lightThroughGel } from '../../../shared/spectral/lights';
 import { SpectralInputError } from '../../../shared/spectral/errors';
 import { toPairs, type Spectrum } from '../../../shared/spectral/spectrum';
 import { CURVE_BASIS_LABELS, type CurveKind, type CurveOrigin, type CurveOriginInput } from '../../../shared/schemas/curve';
-import { loadCurves, resolveFilterRef, resolveLightRef } from '../looks/look-resolve';
+import { loadCurves, resolveFilterRef, resolveLightRef } from '../tones/look-resolve';
 import { readTable, withTableErrors } from './table-input';
 
 export interface BuiltCurve {

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
-import { handle, productionRoute, pid, idParam } from '../route-registry';
+import { handle, productionRoute, pid, itemRoutes } from '../route-registry';
 import { curveCreateSchema, curveUpdateSchema } from '../../../shared/schemas/curve';
 import { LibraryService } from './library.service';
 
@@ -14,15 +14,6 @@ export function libraryRouter(ctx: AppContext): Router {
   productionRoute(r, ctx, 'post', '/curves', 'editor', validate(curveCreateSchema), handle(async (req, res) => {
     res.status(201).json({ curve: await svc.create(req.membership!, req.body) });
   }));
-  productionRoute(r, ctx, 'get', '/curves/:curveId', 'viewer', handle(async (req, res) => {
-    res.json({ curve: await svc.get(pid(req), idParam(req.params.curveId, 'Curve')) });
-  }));
-  productionRoute(r, ctx, 'patch', '/curves/:curveId', 'editor', validate(curveUpdateSchema), handle(async (req, res) => {
-    res.json({ curve: await svc.update(req.membership!, idParam(req.params.curveId, 'Curve'), req.body) });
-  }));
-  productionRoute(r, ctx, 'delete', '/curves/:curveId', 'editor', handle(async (req, res) => {
-    await svc.remove(req.membership!, idParam(req.params.curveId, 'Curve'));
-    res.status(204).end();
-  }));
+  itemRoutes(r, ctx, { plural: 'curves', param: 'curveId', key: 'curve', what: 'Curve', read: 'viewer', write: 'editor', updateSchema: curveUpdateSchema }, svc);
   return r;
 }

@@ -1,12 +1,14 @@
 import type { DataSource } from 'typeorm';
+import { authoredView } from '../authored';
+import { findInProduction } from '../../db/in-production';
 import { Curve } from '../../db/entities/curve.entity';
 import { Look } from '../../db/entities/look.entity';
 import type { Membership } from '../../db/entities/membership.entity';
-import { ConflictError, NotFoundError } from '../../errors';
+import { ConflictError } from '../../errors';
 import { curveCreateSchema, curveUpdateSchema, type CurveView } from '../../../shared/schemas/curve';
 import type { z } from 'zod';
 import { buildCurve } from './curve-build';
-import { refsOfLook } from '../looks/look-resolve';
+import { refsOfLook } from '../tones/look-resolve';
 
 type CreateInput = z.infer<typeof curveCreateSchema>;
 type UpdateInput = z.infer<typeof curveUpdateSchema>;
@@ -26,9 +28,7 @@ function view(c: Curve, usedBy: number): CurveView {
     samples: c.samples,
     source: c.source,
     usedBy,
-    createdBy: c.createdBy ? { id: c.createdBy.id, name: c.createdBy.name } : null,
-    createdAt: new Date(c.createdAt).toISOString(),
-    updatedAt: new Date(c.updatedAt).toISOString(),
+    ...authoredView(c),
   };
 }
 
@@ -50,8 +50,7 @@ export class LibraryService {
   }
 
   private async entity(productionId: number, id: number) {
-    const c = await this.ds.getRepository(Curve).findOne({ where: { id, production: { id: productionId } }, relations: { createdBy: true } });
-    if (!c) throw new NotFoundError('Curve');
+    const c = await findInProduction(this.ds.manager, Curve, productionId, id, 'Curve', { createdBy: true });
     return c;
   }
 
@@ -80,8 +79,7 @@ export class LibraryService {
   /** A curve used by a look cannot be deleted (the look would lose part of its light path). */
   async remove(m: Membership, id: number) {
     await this.ds.transaction(async (t) => {
-      const c = await t.findOne(Curve, { where: { id, production: { id: m.production.id } } });
-      if (!c) throw new NotFoundError('Curve');
+      const c = await findInProduction(t, Curve, m.production.id, id, 'Curve');
       const looks = (await t.find(Look, { where: { production: { id: m.production.id } } })).filter((l) => curveIdsOfLook(l).includes(id));
       if (looks.length) throw new ConflictError(`"${c.name}" is used by ${looks.map((l) => `"${l.name}"`).join(', ')}; change those looks first.`);
       await t.remove(c);

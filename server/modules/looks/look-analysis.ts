@@ -10,8 +10,8 @@ import { buildTonePipeline } from '../../../shared/tone/tone-pipeline';
 import type { FactorForLight, LookAnalysis, PathCurve } from '../../../shared/schemas/look';
 import type { ToneSettings } from '../../../shared/schemas/exposure';
 import type { Spectrum } from '../../../shared/spectral/spectrum';
-import type { ResolvedLook } from './look-resolve';
-import { toneMediumId } from '../boards/board-tones';
+import type { ResolvedLook } from '../tones/look-resolve';
+
 
 /** Library ids of the two reference lights the factor is also given for. */
 export const DAYLIGHT_ID = 'd65';
@@ -45,7 +45,7 @@ export function analyseLook(r: ResolvedLook, tone: ToneSettings, t0 = performanc
     source: 'product of the curves above, normalised to its peak',
     values: Array.from(product, (v) => Number((top > 0 ? v / top : 0).toPrecision(5))),
   });
-  const pipeline = buildTonePipeline({ mediumId: toneMediumId(r), settings: tone });
+  const pipeline = buildTonePipeline({ mediumId: r.mediumToneId, settings: tone });
   return {
     nm: [...GRID_NM_LIST],
     curves,

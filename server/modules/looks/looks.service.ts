@@ -1,14 +1,16 @@
 import { zodToInvalid } from '../../middleware/validate';
+import { authoredView } from '../authored';
+import { findInProduction } from '../../db/in-production';
 import type { DataSource } from 'typeorm';
 import { Look } from '../../db/entities/look.entity';
 import type { Membership } from '../../db/entities/membership.entity';
-import { InvalidError, NotFoundError } from '../../errors';
+import { InvalidError } from '../../errors';
 import { lookAnalyseSchema, lookCreateSchema, lookUpdateSchema, type LookAnalysis, type LookDefinition, type LookView } from '../../../shared/schemas/look';
 import type { z } from 'zod';
-import { loadCurves, refsOfLook, resolveLook } from './look-resolve';
+import { loadCurves, refsOfLook, resolveLook } from '../tones/look-resolve';
 import { analyseLook } from './look-analysis';
 import { dropLookFromBoards } from '../boards/boards.service';
-import { ToneService } from '../boards/tone.service';
+import { ToneService } from '../tones/tone.service';
 import { Swatch } from '../../db/entities/swatch.entity';
 import type { EntityManager } from 'typeorm';
 import { toneSettingsSchema } from '../../../shared/schemas/exposure';
@@ -26,9 +28,7 @@ export function lookView(l: Look): LookView {
     filters: l.filters,
     medium: l.medium,
     tone: toneSettingsSchema.parse(l.tone ?? {}),
-    createdBy: l.createdBy ? { id: l.createdBy.id, name: l.createdBy.name } : null,
-    createdAt: new Date(l.createdAt).toISOString(),
-    updatedAt: new Date(l.updatedAt).toISOString(),
+    ...authoredView(l),
   };
 }
 
@@ -54,8 +54,7 @@ export class LooksService {
   }
 
   private async entity(productionId: number, id: number, em: EntityManager = this.ds.manager) {
-    const l = await em.findOne(Look, { where: { id, production: { id: productionId } }, relations: { createdBy: true } });
-    if (!l) throw new NotFoundError('Look');
+    const l = await findInProduction(em, Look, productionId, id, 'Look', { createdBy: true });
     return l;
   }
 

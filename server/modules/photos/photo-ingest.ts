@@ -1,10 +1,11 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import sharp, { type Metadata, type Sharp, type SharpOptions } from 'sharp';
+import sharp, { type Metadata } from 'sharp';
 import { AppError, InvalidError } from '../../errors';
-import { MAX_PHOTO_PIXELS, PREVIEW_WIDTH, THUMB_SIZE, type PhotoFormat, type PhotoView } from '../../../shared/schemas/photo';
+import { PREVIEW_WIDTH, THUMB_SIZE, type PhotoFormat, type PhotoView } from '../../../shared/schemas/photo';
 import { EXTENSIONS } from './photo-storage';
 import { iccDescription } from './icc-description';
+import { sharpInput, srgbReader } from '../../services/srgb-reader';
 
 /** Tallest preview kept, px: a 2:3 portrait still gets a preview about 1700 px wide. */
 export const PREVIEW_MAX_HEIGHT = 2560;
@@ -25,22 +26,6 @@ export function sniffFormat(head: Uint8Array): PhotoFormat | null {
 }
 
 const NOT_AN_IMAGE = 'The file is not a JPEG, PNG, TIFF or WebP image (checked by its content, not its name).';
-
-/** sharp options for every read of an upload: the pixel limit against decompression bombs, and strictness. */
-export function sharpInput(maxPixels: number = MAX_PHOTO_PIXELS): SharpOptions {
-  return { limitInputPixels: maxPixels, failOn: 'warning', sequentialRead: true };
-}
-
-/**
- * A sharp pipeline that reads an upload into sRGB: orientation applied, transparency flattened on white,
- * an embedded ICC profile converted. sharp moves 16-bit images with a profile into Display P3 for
- * processing and would hand those numbers on as if they were sRGB; naming sRGB as the output profile
- * converts them back (8-bit images are processed in sRGB already).
- */
-export function srgbReader(input: string | Buffer, opts: { bits: 8 | 16; hasProfile: boolean; maxPixels?: number }): Sharp {
-  const s = sharp(input, sharpInput(opts.maxPixels)).rotate().flatten({ background: '#ffffff' });
-  return opts.bits === 16 && opts.hasProfile ? s.withIccProfile('srgb', { attach: false }) : s;
-}
 
 /**
  * Checks an uploaded file by its content and writes the sRGB preview and thumbnail (orientation applied,

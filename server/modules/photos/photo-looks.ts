@@ -1,13 +1,13 @@
 /**
  * Looks for photos: a saved look or a definition → the spectra and settings shared/photo composes
- * (PhotoLookSpectra), using the looks feature's resolver (production curves, library items, inline
+ * (LookSpectra), using the looks feature's resolver (production curves, library items, inline
  * sources, the key swatch); and the same as JSON for the browser's live preview.
  */
+import { findInProduction } from '../../db/in-production';
 import crypto from 'node:crypto';
 import type { EntityManager } from 'typeorm';
 import { Look } from '../../db/entities/look.entity';
-import { NotFoundError } from '../../errors';
-import { photoLookFingerprint, type PhotoLookSpectra } from '../../../shared/photo/compose-look';
+import { lookFingerprint, type ComposedLook, type LookSpectra } from '../../../shared/look/compose-look';
 import { GRID_NM_LIST } from '../../../shared/spectral/grid';
 import { libraryFilter, libraryLight } from '../../../shared/spectral/library';
 import { BLACKBODY_K, DAYLIGHT_CCT_K } from '../../../shared/spectral/limits';
@@ -15,12 +15,12 @@ import type { LookDefinition } from '../../../shared/schemas/look';
 import type { PhotoFilterEdit, PhotoLightEdit, PhotoLookView } from '../../../shared/schemas/photo';
 import type { FilterSource, LightSource } from '../../../shared/schemas/simulate';
 import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
-import { lookDefinition, prepareToneLooks } from '../boards/tone.service';
-import { toneMediumId } from '../boards/board-tones';
-import type { ResolvedLook } from '../looks/look-resolve';
+import { lookDefinition, prepareToneLooks } from '../tones/tone.service';
+import type { ResolvedLook } from '../tones/look-resolve';
 
 export interface PhotoLookResolved {
-  spectra: PhotoLookSpectra;
+  spectra: LookSpectra;
+  composed: ComposedLook;
   resolved: ResolvedLook;
   definition: LookDefinition;
   name: string;
@@ -32,24 +32,15 @@ export interface PhotoLookResolved {
 export async function resolvePhotoLook(em: EntityManager, productionId: number, choice: { lookId?: number; look?: LookDefinition }, table: UpsampleTable): Promise<PhotoLookResolved> {
   let def: LookDefinition & { id: number; name: string };
   if (choice.lookId !== undefined) {
-    const l = await em.findOne(Look, { where: { id: choice.lookId, production: { id: productionId } } });
-    if (!l) throw new NotFoundError('Look');
+    const l = await findInProduction(em, Look, productionId, choice.lookId, 'Look');
     def = lookDefinition(l);
   } else {
     def = { ...choice.look!, id: 0, name: 'Unsaved look' };
   }
   const [tl] = await prepareToneLooks(em, productionId, [def], table);
-  const r = tl.resolved;
-  const spectra: PhotoLookSpectra = {
-    bareLight: r.bareLight.spectrum,
-    filters: r.filters.map((f) => ({ spectrum: f.spectrum, on: f.on })),
-    medium: r.medium.spectrum,
-    mediumToneId: toneMediumId(r),
-    tone: tl.tone,
-    key: tl.key ?? null,
-  };
-  const contentHash = crypto.createHash('sha256').update(photoLookFingerprint(spectra)).digest('hex');
-  return { spectra, resolved: r, definition: def, name: def.name, contentHash };
+  const spectra = tl.composed.spectra;
+  const contentHash = crypto.createHash('sha256').update(lookFingerprint(spectra)).digest('hex');
+  return { spectra, composed: tl.composed, resolved: tl.resolved, definition: def, name: def.name, contentHash };
 }
 
 /** The inline or built-in light source a light reference stands for, if any. */

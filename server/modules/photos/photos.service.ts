@@ -1,15 +1,15 @@
 import fs from 'node:fs';
+import { findInProduction } from '../../db/in-production';
 import type { DataSource } from 'typeorm';
 import { Photo } from '../../db/entities/photo.entity';
 import type { Membership } from '../../db/entities/membership.entity';
-import { ForbiddenError, NotFoundError } from '../../errors';
-import { roleAtLeast } from '../../../shared/schemas/roles';
+import { NotFoundError } from '../../errors';
+import { assertDepartmentAccess } from '../../policy/department-access';
 import type { LookDefinition } from '../../../shared/schemas/look';
 import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, type PhotoLookView, type PhotoView, type RenderFormat, type RenderStatus } from '../../../shared/schemas/photo';
 import { ingestPhoto } from './photo-ingest';
 import { PhotoStorage, removeQuietly } from './photo-storage';
 import { RenderJobs } from './render-jobs';
-import { getPhotoTables } from './photo-tables';
 import { getUpsampleTable } from '../../services/upsample-table';
 import { photoLookView, resolvePhotoLook } from './photo-looks';
 
@@ -67,7 +67,7 @@ export class PhotosService {
     readonly limits: PhotoLimits = { maxBytes: MAX_PHOTO_BYTES, maxPixels: MAX_PHOTO_PIXELS },
   ) {
     this.storage = new PhotoStorage(dataDir);
-    this.renders = new RenderJobs(this.storage, () => getPhotoTables(dataDir));
+    this.renders = new RenderJobs(this.storage, () => getUpsampleTable(dataDir));
   }
 
   async list(productionId: number): Promise<PhotoView[]> {
@@ -76,8 +76,7 @@ export class PhotosService {
   }
 
   async entity(productionId: number, id: number): Promise<Photo> {
-    const p = await this.ds.getRepository(Photo).findOne({ where: { id, production: { id: productionId } }, relations: { uploadedBy: true } });
-    if (!p) throw new NotFoundError('Photo');
+    const p = await findInProduction(this.ds.manager, Photo, productionId, id, 'Photo', { uploadedBy: true });
     return p;
   }
 
@@ -125,15 +124,12 @@ export class PhotosService {
   }
 
   private assertMayChange(m: Membership, p: Photo) {
-    if (roleAtLeast(m.role, 'editor')) return;
-    if (m.role === 'contributor' && m.department === p.department) return;
-    throw new ForbiddenError(`Contributors change photos of their own department (${m.department}) only; this one belongs to ${p.department}.`);
+    assertDepartmentAccess(m, p.department, 'photos');
   }
 
   async update(m: Membership, id: number, input: { name?: string; notes?: string }): Promise<PhotoView> {
     return this.ds.transaction(async (t) => {
-      const p = await t.findOne(Photo, { where: { id, production: { id: m.production.id } }, relations: { uploadedBy: true } });
-      if (!p) throw new NotFoundError('Photo');
+      const p = await findInProduction(t, Photo, m.production.id, id, 'Photo', { uploadedBy: true });
       this.assertMayChange(m, p);
       if (input.name !== undefined) p.name = input.name;
       if (input.notes !== undefined) p.notes = input.notes;
@@ -144,8 +140,7 @@ export class PhotosService {
   /** Deletes the row (in a transaction), then the files. */
   async remove(m: Membership, id: number): Promise<void> {
     const key = await this.ds.transaction(async (t) => {
-      const p = await t.findOne(Photo, { where: { id, production: { id: m.production.id } } });
-      if (!p) throw new NotFoundError('Photo');
+      const p = await findInProduction(t, Photo, m.production.id, id, 'Photo');
       this.assertMayChange(m, p);
       await t.remove(p);
       return p.storageKey;
@@ -174,7 +169,7 @@ export class PhotosService {
   async startRender(productionId: number, photoId: number, req: { lookId?: number; look?: LookDefinition; format: RenderFormat }): Promise<RenderStatus> {
     const p = await this.entity(productionId, photoId);
     const look = await resolvePhotoLook(this.ds.manager, productionId, req, await getUpsampleTable(this.dataDir));
-    return this.withUrl(productionId, photoId, this.renders.request(p, look.spectra, look.contentHash, req.format));
+    return this.withUrl(productionId, photoId, this.renders.request(p, look.composed, look.contentHash, req.format));
   }
 
   async renderStatus(productionId: number, photoId: number, key: string): Promise<RenderStatus> {

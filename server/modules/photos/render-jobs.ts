@@ -9,10 +9,11 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Photo } from '../../db/entities/photo.entity';
-import { photoLook, type PhotoLookSpectra } from '../../../shared/photo/compose-look';
+import type { ComposedLook } from '../../../shared/look/compose-look';
+import { photoToneModel } from '../../../shared/photo/look-photo-model';
 import type { RenderFormat, RenderStatus } from '../../../shared/schemas/photo';
 import { buildRenderTable, renderPhoto, type RenderTable } from '../../services/photo-render';
-import type { PhotoTables } from './photo-tables';
+import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
 import { PhotoStorage } from './photo-storage';
 import { AppError } from '../../errors';
 
@@ -32,7 +33,7 @@ const EXT: Record<RenderFormat, string> = { png16: 'png', jpeg: 'jpg' };
 interface Job {
   status: RenderStatus;
   photo: Pick<Photo, 'storageKey' | 'format' | 'bitDepth' | 'iccProfile'>;
-  spectra: PhotoLookSpectra;
+  look: ComposedLook;
   contentHash: string;
   finishedAt?: number;
 }
@@ -50,7 +51,7 @@ export class RenderJobs {
 
   constructor(
     private storage: PhotoStorage,
-    private tables: () => Promise<PhotoTables>,
+    private upsampleTable: () => Promise<UpsampleTable>,
   ) {}
 
   private file(storageKey: string, key: string, format: RenderFormat): string {
@@ -62,7 +63,7 @@ export class RenderJobs {
   }
 
   /** Starts (or finds) the render of `photo` through a look; answers its status at once. */
-  request(photo: Pick<Photo, 'storageKey' | 'format' | 'bitDepth' | 'iccProfile'>, spectra: PhotoLookSpectra, contentHash: string, format: RenderFormat): RenderStatus {
+  request(photo: Pick<Photo, 'storageKey' | 'format' | 'bitDepth' | 'iccProfile'>, look: ComposedLook, contentHash: string, format: RenderFormat): RenderStatus {
     const key = renderKey(photo.storageKey, contentHash, format);
     const existing = this.jobs.get(key);
     if (existing && existing.status.status === 'done') return { ...existing.status, cached: true };
@@ -75,7 +76,7 @@ export class RenderJobs {
     const job: Job = {
       status: { key, status: 'queued', progress: 0, stage: 'queued', format, cached: false, url: null, bytes: null, error: null },
       photo,
-      spectra,
+      look,
       contentHash,
     };
     this.jobs.set(key, job);
@@ -129,11 +130,11 @@ export class RenderJobs {
   }
 
   /** The look's render table for these depths, from the cache or built (while the photo decodes). */
-  private table(job: Job, inputBits: 8 | 16, outputBits: 8 | 16, tables: PhotoTables): Promise<RenderTable> {
+  private table(job: Job, inputBits: 8 | 16, outputBits: 8 | 16, upsample: UpsampleTable): Promise<RenderTable> {
     const k = `${job.contentHash}|${inputBits}|${outputBits}`;
     const hit = this.lookTables.find((p) => p.key === k);
     if (hit) return hit.table;
-    const table = buildRenderTable(photoLook(job.spectra, tables.upsample, tables.reflectances).model, inputBits, outputBits);
+    const table = buildRenderTable(photoToneModel(job.look, upsample), inputBits, outputBits);
     table.catch(() => (this.lookTables = this.lookTables.filter((p) => p.key !== k)));
     this.lookTables = [{ key: k, table }, ...this.lookTables.filter((p) => p.key !== k)].slice(0, TABLE_CACHE);
     return table;
@@ -145,14 +146,14 @@ export class RenderJobs {
     const file = this.file(storageKey, s.key, s.format);
     const tmp = `${file}.${process.pid}.${crypto.randomBytes(4).toString('hex')}.tmp`;
     try {
-      const tables = await this.tables();
+      const upsample = await this.upsampleTable();
       s.status = 'running';
       const result = await renderPhoto({
         input: this.storage.original(storageKey, photoFormat),
         bitDepth: bitDepth === 16 ? 16 : 8,
         hasProfile: job.photo.iccProfile !== null,
         format: s.format,
-        table: (ib, ob) => this.table(job, ib, ob, tables),
+        table: (ib, ob) => this.table(job, ib, ob, upsample),
         onProgress: (p) => {
           s.stage = p.stage;
           s.progress = p.progress;

@@ -9,11 +9,11 @@ import path from 'node:path';
 import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import type { ExposureSheet } from '../../../shared/schemas/sheet';
+import { ZONE_NUMERALS } from '../../../shared/tone/zones';
 import { asciiFractions, formatEI, formatFactor, formatFootcandles, formatLux, formatSeconds, formatStopsLabel, formatTStop } from '../../../shared/tone/exposure-format';
 
 const C = { ink: '#1b1a18', soft: '#4a4742', mute: '#77736b', line: '#d9d5ca', sunk: '#ebe8e0', accent: '#1d5c7a', warn: '#c2410c', warnSoft: '#fbe3d6' };
 const PAGE = { size: 'A4' as const, margin: 42 };
-const NUMERALS = ['0', 'I', 'II', 'III', 'IV', 'V', 'VI', 'VII', 'VIII', 'IX', 'X'];
 /** The app's zone ramp (tailwind.config.ts): zone 0..X at CIE L* 0, 10 … 100. */
 const ZONE_GREYS = ['#000000', '#1b1b1b', '#303030', '#474747', '#5e5e5e', '#777777', '#919191', '#ababab', '#c6c6c6', '#e2e2e2', '#ffffff'];
 
@@ -198,7 +198,7 @@ export function renderSheetPdf(sheet: ExposureSheet): Promise<Buffer> {
   y = doc.y + 6;
   ensure(30);
   const zw = W / 11;
-  NUMERALS.forEach((n, z) => {
+  ZONE_NUMERALS.forEach((n, z) => {
     doc.rect(L + z * zw, y, zw, 14).fill(ZONE_GREYS[z]);
     font(true, 7, z < 6 ? '#ffffff' : C.ink).text(n, L + z * zw, y + 4, opts({ width: zw, align: 'center' }));
   });

@@ -2,25 +2,24 @@
  * The exposure sheet of a look: everything the camera crew and the gaffer take to set, worked out by the
  * engine (shared/spectral via the looks module) and the tone model (shared/tone). Composition only.
  */
+import { findInProduction } from '../../db/in-production';
 import type { DataSource } from 'typeorm';
 import { Look } from '../../db/entities/look.entity';
 import { Board } from '../../db/entities/board.entity';
 import { Swatch } from '../../db/entities/swatch.entity';
 import { Production } from '../../db/entities/production.entity';
-import { NotFoundError } from '../../errors';
 import { toneSettingsSchema, type EiChainStepAnswer, type ToneSettings } from '../../../shared/schemas/exposure';
 import { SHEET_CAUTIONS, type ExposureSheet, type SheetFactor, type SheetSwatch } from '../../../shared/schemas/sheet';
 import { eiChain, formatStops } from '../../../shared/tone/ei-chain';
 import { COMMON_T_STOPS, exposurePlan, lightLevelTable } from '../../../shared/tone/exposure-plan';
 import { DEFAULT_INCIDENT_C, DEFAULT_INCIDENT_C_NOTE } from '../../../shared/tone/light-level';
-import { buildTonePipeline, type TonePipeline } from '../../../shared/tone/tone-pipeline';
+import type { TonePipeline } from '../../../shared/tone/tone-pipeline';
 import { developmentGammaFactor } from '../../../shared/tone/development';
 import { zoneNumeral } from '../../../shared/tone/zones';
 import { getUpsampleTable } from '../../services/upsample-table';
-import { loadCurves, refsOfLook, resolveLook } from '../looks/look-resolve';
 import { analyseLook } from '../looks/look-analysis';
-import { lookDefinition, prepareToneLooks, toneSwatches } from '../boards/tone.service';
-import { lookTones, toneMediumId } from '../boards/board-tones';
+import { lookDefinition, prepareToneLooks, toneSwatches } from '../tones/tone.service';
+import { lookTones, type ToneLook } from '../tones/board-tones';
 
 /** At most this many swatches on a sheet (the rest are counted, not listed). */
 export const SHEET_MAX_SWATCHES = 30;
@@ -54,17 +53,17 @@ export class SheetsService {
   /** The sheet of look `lookId` of production `productionId`; NotFoundError when the look is not in it. */
   async sheet(productionId: number, lookId: number): Promise<ExposureSheet> {
     const em = this.ds.manager;
-    const look = await em.findOne(Look, { where: { id: lookId, production: { id: productionId } } });
-    if (!look) throw new NotFoundError('Look');
+    const look = await findInProduction(em, Look, productionId, lookId, 'Look');
     const production = await em.findOneByOrFail(Production, { id: productionId });
     const tone = toneSettingsSchema.parse(look.tone ?? {});
     const def = { ...lookDefinition(look), tone };
 
-    const curves = await loadCurves(em, productionId, refsOfLook(def));
-    const resolved = resolveLook(def, curves);
+    const table = await getUpsampleTable(this.dataDir);
+    const [toneLook] = await prepareToneLooks(em, productionId, [def], table);
+    const { resolved, composed } = toneLook;
     const analysis = analyseLook(resolved, tone);
-    const mediumId = toneMediumId(resolved);
-    const pipeline = buildTonePipeline({ mediumId, settings: tone, boxSpeed: tone.boxSpeed ?? undefined });
+    const mediumId = resolved.mediumToneId;
+    const pipeline = composed.pipeline;
 
     const factors: SheetFactor[] = [
       { label: 'This look’s light', ...analysis.factor },
@@ -100,7 +99,7 @@ export class SheetsService {
       cost = plan.cost;
     }
 
-    const { swatches, left, boards } = await this.keySwatches(productionId, look, tone);
+    const { swatches, left, boards } = await this.keySwatches(productionId, look, tone, toneLook);
     const keySwatch = tone.keySwatchId !== null ? await em.findOne(Swatch, { where: { id: tone.keySwatchId, production: { id: productionId } } }) : null;
     return {
       production: { id: production.id, name: production.name },
@@ -140,7 +139,7 @@ export class SheetsService {
   }
 
   /** Swatches of the boards that show this look (plus its key swatch): key first, then lightest to darkest. */
-  private async keySwatches(productionId: number, look: Look, tone: ToneSettings): Promise<{ swatches: SheetSwatch[]; left: number; boards: string[] }> {
+  private async keySwatches(productionId: number, look: Look, tone: ToneSettings, toneLook: ToneLook): Promise<{ swatches: SheetSwatch[]; left: number; boards: string[] }> {
     const em = this.ds.manager;
     const all = await em.find(Board, { where: { production: { id: productionId } }, relations: { swatches: true }, order: { department: 'ASC', name: 'ASC', id: 'ASC' } });
     const using = all.filter((b) => b.lookIds.includes(look.id));
@@ -153,7 +152,6 @@ export class SheetsService {
     if (!rows.size) return { swatches: [], left: 0, boards: using.map((b) => b.name) };
     const table = await getUpsampleTable(this.dataDir);
     const list = [...rows.values()];
-    const [toneLook] = await prepareToneLooks(em, productionId, [{ ...lookDefinition(look), tone }], table);
     const tones = lookTones(toneLook, toneSwatches(list.map((r) => r.swatch), table), 0, Infinity).tones;
     const out: SheetSwatch[] = tones.map((t, i) => ({
       swatchId: t.swatchId,

@@ -1,11 +1,11 @@
 import { Router } from 'express';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
-import { handle, productionRoute, pid, idParam } from '../route-registry';
+import { handle, productionRoute, pid, idParam, itemRoutes } from '../route-registry';
 import { departmentSchema } from '../../../shared/schemas/roles';
 import { swatchCreateSchema, swatchUpdateSchema } from '../../../shared/schemas/swatch';
 import { SwatchesService } from './swatches.service';
-import { ToneService } from '../boards/tone.service';
+import { ToneService } from '../tones/tone.service';
 
 /** Swatches: viewers read; contributors add and edit their own department's; editors and owners any. */
 export function swatchesRouter(ctx: AppContext): Router {
@@ -20,18 +20,9 @@ export function swatchesRouter(ctx: AppContext): Router {
   productionRoute(r, ctx, 'post', '/swatches', 'contributor', validate(swatchCreateSchema), handle(async (req, res) => {
     res.status(201).json({ swatch: await svc.create(req.membership!, req.body) });
   }));
-  productionRoute(r, ctx, 'get', '/swatches/:swatchId', 'viewer', handle(async (req, res) => {
-    res.json({ swatch: await svc.get(pid(req), idParam(req.params.swatchId, 'Swatch')) });
-  }));
   productionRoute(r, ctx, 'get', '/swatches/:swatchId/tones', 'viewer', handle(async (req, res) => {
     res.json(await tones.swatchTones(pid(req), idParam(req.params.swatchId, 'Swatch')));
   }));
-  productionRoute(r, ctx, 'patch', '/swatches/:swatchId', 'contributor', validate(swatchUpdateSchema), handle(async (req, res) => {
-    res.json({ swatch: await svc.update(req.membership!, idParam(req.params.swatchId, 'Swatch'), req.body) });
-  }));
-  productionRoute(r, ctx, 'delete', '/swatches/:swatchId', 'contributor', handle(async (req, res) => {
-    await svc.remove(req.membership!, idParam(req.params.swatchId, 'Swatch'));
-    res.status(204).end();
-  }));
+  itemRoutes(r, ctx, { plural: 'swatches', param: 'swatchId', key: 'swatch', what: 'Swatch', read: 'viewer', write: 'contributor', updateSchema: swatchUpdateSchema }, svc);
   return r;
 }

@@ -1,17 +1,18 @@
 import { Look } from '../../db/entities/look.entity';
+import { authoredView } from '../authored';
+import { findInProduction } from '../../db/in-production';
 import type { DataSource, EntityManager } from 'typeorm';
 import { Swatch } from '../../db/entities/swatch.entity';
 import type { Membership } from '../../db/entities/membership.entity';
-import { NotFoundError } from '../../errors';
 import { reflectanceFromPairs } from '../../../shared/spectral/bases';
 import { toPairs } from '../../../shared/spectral/spectrum';
 import type { Department } from '../../../shared/schemas/roles';
 import { swatchCreateSchema, swatchUpdateSchema, type SwatchOrigin, type SwatchView } from '../../../shared/schemas/swatch';
 import type { z } from 'zod';
 import { readTable, withTableErrors } from '../library/table-input';
-import { assertDepartmentAccess } from './department-access';
+import { assertDepartmentAccess } from '../../policy/department-access';
 import { hexOfColour, hexOfReflectance } from './swatch-colour';
-import { estimatedPairs } from './swatch-spectra';
+import { estimatedPairs } from '../tones/swatch-spectra';
 import { getUpsampleTable } from '../../services/upsample-table';
 import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
 
@@ -45,9 +46,7 @@ export function swatchView(s: Swatch, table?: UpsampleTable): SwatchView {
     origin: s.origin,
     hex: s.hex,
     spectrum: s.reflectance ? 'measured' : 'estimated',
-    createdBy: s.createdBy ? { id: s.createdBy.id, name: s.createdBy.name } : null,
-    createdAt: new Date(s.createdAt).toISOString(),
-    updatedAt: new Date(s.updatedAt).toISOString(),
+    ...authoredView(s),
   };
   if (table) v.reflectance = s.reflectance ?? estimatedPairs(s.hex, table);
   return v;
@@ -71,8 +70,7 @@ export class SwatchesService {
   }
 
   async entity(productionId: number, id: number, em: EntityManager = this.ds.manager): Promise<Swatch> {
-    const s = await em.findOne(Swatch, { where: { id, production: { id: productionId } }, relations: { createdBy: true } });
-    if (!s) throw new NotFoundError('Swatch');
+    const s = await findInProduction(em, Swatch, productionId, id, 'Swatch', { createdBy: true });
     return s;
   }
 

@@ -8,6 +8,7 @@ import { useInvitation } from '../../features/auth/api/get-invitation';
 import { useAcceptInvitation } from '../../features/auth/api/accept-invitation';
 import { acceptInvitationSchema } from '../../../shared/schemas/auth';
 import { apiFieldError, zodFieldErrors } from '../../lib/form-errors';
+import { paths } from '../../lib/paths';
 
 export default function AcceptInvitationPage() {
   const { token = '' } = useParams();
@@ -27,7 +28,7 @@ export default function AcceptInvitationPage() {
     if (!parsed.success) return setErrors(zodFieldErrors(parsed.error));
     setErrors({});
     accept.mutate({ token, ...parsed.data }, {
-      onSuccess: (r) => navigate(`/p/${r.productionId}`),
+      onSuccess: (r) => navigate(paths.production(r.productionId).root()),
       onError: (err) => setErrors(apiFieldError(err)),
     });
   }

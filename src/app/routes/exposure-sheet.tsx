@@ -1,11 +1,9 @@
-import { useMemo } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { Button } from '../../components/ui/button';
 import { ErrorMessage, Spinner } from '../../components/ui/alert';
 import { exposureSheetPdfUrl, useExposureSheet } from '../../features/exposure/api/get-exposure-sheet';
-import { CharacteristicCurveChart, type CurveSwatch } from '../../features/exposure/components/characteristic-curve-chart';
-import { formatEI, formatFactor, formatFootcandles, formatLux, formatSeconds, formatStopsLabel, formatTStop } from '../../../shared/tone/exposure-format';
-import type { ExposureSheet } from '../../../shared/schemas/sheet';
+import { ExposureSheetView } from '../../features/exposure/components/exposure-sheet-view';
+import { paths } from '../../lib/paths';
 
 const PRINT_CSS = `
 @page { size: A4; margin: 12mm; }
@@ -15,19 +13,6 @@ const PRINT_CSS = `
   .sheet .sheet-swatches tr { break-inside: avoid; }
   main { max-width: none !important; padding: 0 !important; }
 }`;
-
-/** Inter's tabular figures also widen hyphens, so words in tables are set with normal figures. */
-const WORDS = '[font-variant-numeric:normal]';
-const NUM = 'px-1 text-right tabular-nums';
-
-const signed = (v: number) => {
-  const r = Number(v.toFixed(1));
-  return r === 0 ? '0.0' : `${r > 0 ? '+' : '−'}${Math.abs(r).toFixed(1)}`;
-};
-
-function H({ children }: { children: string }) {
-  return <h2 className="mb-2 text-[11px] font-semibold uppercase tracking-widest text-accent">{children}</h2>;
-}
 
 /** The exposure sheet of a look: a printable page for the camera crew, with the same content as its PDF. */
 export default function ExposureSheetPage() {
@@ -40,7 +25,7 @@ export default function ExposureSheetPage() {
     <div className="sheet mx-auto max-w-4xl">
       <style>{PRINT_CSS}</style>
       <div className="no-print mb-4 flex flex-wrap items-center gap-2">
-        <Link to={`/p/${pid}/bench/${lookId}`} className="text-sm text-accent hover:underline">← Back to the bench</Link>
+        <Link to={paths.production(pid).bench(lookId)} className="text-sm text-accent hover:underline">← Back to the bench</Link>
         <span className="ml-auto" />
         <Button onClick={() => window.print()} disabled={!s}>Print</Button>
         <a href={exposureSheetPdfUrl(pid, lookId)} download className="inline-flex items-center rounded-md bg-accent px-3 py-1.5 text-sm font-medium text-white hover:bg-accent-strong">
@@ -49,178 +34,7 @@ export default function ExposureSheetPage() {
       </div>
       {q.isPending && <Spinner />}
       <ErrorMessage error={q.error} />
-      {s && <Sheet s={s} />}
+      {s && <ExposureSheetView s={s} />}
     </div>
-  );
-}
-
-function Sheet({ s }: { s: ExposureSheet }) {
-  const pins: CurveSwatch[] = useMemo(() => s.swatches.map((w) => ({ name: w.name, stops: w.stops, colour: w.hex })), [s.swatches]);
-  const settings = useMemo(() => s.tone, [s.tone]);
-  const p = s.lightPath;
-  const path = [
-    ['Light', p.light],
-    ['Filters', p.filters.length ? p.filters.map((f) => `${f.label}, on the ${f.on}`).join('; ') : 'none'],
-    ['Medium', p.medium],
-    ['Development', p.development],
-    ['Print', p.print],
-  ];
-  return (
-    <article className="rounded-lg border border-paper-line bg-white p-6 print:border-0 print:p-0" aria-label="Exposure sheet">
-      <header className="mb-4 border-b-2 border-ink pb-3">
-        <div className="flex justify-between text-[11px]">
-          <span className="font-semibold uppercase tracking-widest text-accent">Exposure sheet</span>
-          <span className="text-ink-mute">Grisaille · {new Date(s.generatedAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}</span>
-        </div>
-        <h1 className={`mt-1 text-3xl ${WORDS}`}>{s.look.name}</h1>
-        <p className="text-sm text-ink-soft">{s.production.name}</p>
-      </header>
-
-      <section className="mb-5">
-        <H>Light path</H>
-        <ol className="flex items-stretch gap-1 text-sm" aria-label="Light path">
-          {path.map(([k, v], i) => (
-            <li key={k} className="flex flex-1 items-center gap-1">
-              <div className={`h-full flex-1 rounded border border-paper-line p-2 ${k === 'Medium' ? 'bg-paper-sunk' : ''}`}>
-                <div className="text-[10px] font-semibold uppercase tracking-wide text-ink-mute">{k}</div>
-                <div>{v}</div>
-              </div>
-              {i < path.length - 1 && <span aria-hidden="true" className="text-ink-mute">→</span>}
-            </li>
-          ))}
-        </ol>
-      </section>
-
-      <div className="mb-5 grid grid-cols-2 gap-6">
-        <section>
-          <H>Filter factors</H>
-          <table className="w-full text-sm">
-            <thead className={`text-left text-[10px] uppercase tracking-wide text-ink-mute ${WORDS}`}><tr><th>Light</th><th className="px-1 text-right">Stops</th><th className="px-1 text-right">Factor</th></tr></thead>
-            <tbody>
-              {s.factors.map((f) => (
-                <tr key={f.label} className="border-t border-paper-line">
-                  <td className={`py-1 ${WORDS}`}>{f.label}<span className="block text-xs text-ink-mute">{f.light}</span></td>
-                  <td className={`${NUM} ${f.opaque ? 'text-warn' : ''}`}>{f.opaque ? 'opaque' : formatStopsLabel(f.stops)}</td>
-                  <td className={NUM}>{formatFactor(f.factor)}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-          <p className="mt-1 text-[11px] text-ink-mute">F = ΣE·S / ΣE·T·S over 380–780 nm on this medium; stops = log₂ F. Open up by this much.</p>
-        </section>
-        <section data-testid="sheet-ei-chain">
-          <H>Exposure-index chain</H>
-          {s.chain ? (
-            <>
-              <table className="w-full text-sm">
-                <thead className={`text-left text-[10px] uppercase tracking-wide text-ink-mute ${WORDS}`}><tr><th>Step</th><th className="px-1 text-right">Change</th><th className="px-1 text-right">EI</th></tr></thead>
-                <tbody>
-                  {s.chain.steps.map((st) => (
-                    <tr key={st.step} className="border-t border-paper-line">
-                      <td className={`py-1 ${WORDS}`}>{st.label}</td>
-                      <td className={NUM}>{st.step === 'box' ? '' : formatStopsLabel(st.stops)}</td>
-                      <td className={NUM}>{formatEI(st.ei)}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-              <p className="mt-2 flex items-baseline justify-between rounded bg-ink px-3 py-1.5 text-white">
-                <span className="text-sm">Effective EI (this look’s light)</span>
-                <span className="text-2xl font-semibold">{s.chain.effectiveEI}</span>
-              </p>
-              <p className="mt-1 text-xs text-ink-soft">Effective EI under {s.chain.byLight.map((b) => `${b.light}: ${formatEI(b.effectiveEI)}`).join('; under ')}. Each EI rounded to the ISO third-stop series.</p>
-            </>
-          ) : <p className="text-sm text-ink-mute">The eye has no exposure index.</p>}
-        </section>
-      </div>
-
-      <section className="mb-5" data-testid="sheet-light-levels">
-        <H>Light levels (incident, at the subject)</H>
-        <p className="mb-1 text-xs text-ink-soft">
-          {s.camera.fps} fps, {s.camera.shutterAngle}° shutter ({formatSeconds(s.camera.exposureSeconds)}){s.chain ? `, ${formatEI(s.chain.effectiveEI)}` : ''}. E = C·N² / (t·S) after ISO 2720, meter constant C = {s.camera.calibrationConstant} lux·s.
-        </p>
-        {s.lightLevels.length > 0 && (
-          <table className="w-full text-sm">
-            <thead className={`text-left text-[10px] uppercase tracking-wide text-ink-mute ${WORDS}`}><tr><th>T-stop</th><th className="px-1 text-right">Foot-candles</th><th className="px-1 text-right">Lux</th><th className="px-1 text-right">Unfiltered, fc</th></tr></thead>
-            <tbody>
-              {s.lightLevels.map((r) => {
-                const own = Math.abs(r.tStop - s.camera.tStop) < 1e-9;
-                return (
-                  <tr key={r.tStop} className={`border-t border-paper-line ${own ? 'bg-paper-sunk font-semibold' : ''}`}>
-                    <td className="py-0.5">{formatTStop(r.tStop)}{own ? ' (this look)' : ''}</td>
-                    <td className={NUM}>{formatFootcandles(r.footcandles)}</td>
-                    <td className={NUM}>{formatLux(r.lux)}</td>
-                    <td className={`${NUM} text-ink-mute`}>{formatFootcandles(r.unfilteredFootcandles)}</td>
-                  </tr>
-                );
-              })}
-            </tbody>
-          </table>
-        )}
-        {s.cost && (
-          <p className={`mt-2 rounded px-3 py-1.5 text-sm font-semibold ${s.cost.ratio > 1.005 ? 'bg-warn-soft' : 'bg-paper-sunk'}`}>
-            This look {s.cost.text}{s.cost.ratio > 1.005 ? ` (${formatStopsLabel(s.cost.stops)} more light)` : ''}.
-          </p>
-        )}
-      </section>
-
-      <section className="mb-5">
-        <H>Key and zones</H>
-        <p className="mb-2 text-xs text-ink-soft">
-          Key: {s.key.description}. Texture is lost under {s.thresholds.shadowDetailStops.toFixed(1)} stops below the key and blows over {s.thresholds.highlightRollOffStops.toFixed(1)} stops above it.
-          {s.boards.length > 0 && ` Swatches from: ${s.boards.join(', ')}.`}
-        </p>
-        <CharacteristicCurveChart mediumId={s.toneMediumId} settings={settings} boxSpeed={s.tone.boxSpeed ?? undefined} swatches={pins} height={240} maxLabels={0} showList={false} />
-      </section>
-
-      {s.swatches.length > 0 ? (
-        <section className="mb-5">
-          <table className="sheet-swatches w-full text-sm">
-            <thead className={`text-left text-[10px] uppercase tracking-wide text-ink-mute ${WORDS}`}>
-              <tr><th>Colour · grey</th><th className="px-1">Swatch</th><th className="px-1">Board</th><th className="px-1 text-right">Zone</th><th className="px-1 text-right">Stops</th><th className="px-1 text-right">Shift</th><th className="px-2">Note</th></tr>
-            </thead>
-            <tbody>
-              {s.swatches.map((w) => (
-                <tr key={w.swatchId} className="border-t border-paper-line">
-                  <td className="py-0.5">
-                    <span className="inline-flex overflow-hidden rounded-sm border border-paper-line">
-                      <span className="h-4 w-6" style={{ background: w.hex }} />
-                      <span className="h-4 w-6" style={{ background: `rgb(${w.grey},${w.grey},${w.grey})` }} />
-                    </span>
-                  </td>
-                  <td className={`px-1 ${WORDS} ${w.key ? 'font-semibold' : ''}`}>{w.name}{w.key ? ' (key)' : ''}</td>
-                  <td className={`px-1 text-ink-soft ${WORDS}`}>{w.board}</td>
-                  <td className={NUM}>{w.numeral} ({w.zone.toFixed(1)})</td>
-                  <td className={NUM}>{signed(w.stops)}</td>
-                  <td className={`${NUM} ${Math.abs(w.shift) >= 1 ? 'text-warn' : ''}`}>{signed(w.shift)}</td>
-                  <td className="px-2 text-warn">{w.lost ? 'texture lost' : w.blown ? 'blown' : ''}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-          <p className="mt-1 text-[11px] text-ink-mute">
-            Stops from middle grey on the medium with the key placed; shift = medium minus eye (+ reads lighter than it looks).
-            {s.swatchesLeftOff > 0 && ` ${s.swatchesLeftOff} more swatches are on the boards.`}
-          </p>
-        </section>
-      ) : (
-        <p className="mb-5 text-sm text-ink-mute">No board shows this look yet: add it to a board to list its swatches here.</p>
-      )}
-
-      {s.notes.trim() && (
-        <section className="mb-5">
-          <H>Notes</H>
-          <p className="whitespace-pre-line text-sm">{s.notes}</p>
-        </section>
-      )}
-
-      <section className="rounded border-2 border-warn bg-warn-soft p-3" data-testid="sheet-cautions">
-        <h2 className="mb-1 text-[11px] font-semibold uppercase tracking-widest text-warn">Cautions</h2>
-        <ul className="space-y-1 text-sm">
-          {s.cautions.map((c) => <li key={c.title}><strong>{c.title}.</strong> {c.text}</li>)}
-        </ul>
-      </section>
-      <p className="mt-3 text-[11px] text-ink-mute">Model values: confirm with a meter and camera tests.</p>
-    </article>
   );
 }

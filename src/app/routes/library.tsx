@@ -3,7 +3,7 @@ import { useParams } from 'react-router-dom';
 import { PageHeader, Card } from '../../components/ui/card';
 import { Button } from '../../components/ui/button';
 import { ErrorMessage, Notice, Spinner } from '../../components/ui/alert';
-import { useProduction } from '../../features/productions/api/get-production';
+import { useMember } from '../../features/productions/hooks/use-member';
 import { useLibrary, type LibraryItemView } from '../../features/library/api/get-library';
 import { useCurves } from '../../features/library/api/get-curves';
 import { useCreateCurve } from '../../features/library/api/create-curve';
@@ -12,23 +12,23 @@ import { CurveChart } from '../../features/library/components/curve-chart';
 import { CurveUploadForm } from '../../features/library/components/curve-upload-form';
 import { ParametricFilterForm } from '../../features/library/components/parametric-filter-form';
 import { GelLightForm } from '../../features/library/components/gel-light-form';
-import { roleAtLeast } from '../../../shared/schemas/roles';
+import { roleAtLeast } from '../../../shared/policy/department';
 import type { CurveKind, CurveView } from '../../../shared/schemas/curve';
 import type { CurveCreateInput } from '../../../shared/schemas/curve';
+import { GRID_NM_LIST } from '../../../shared/spectral/grid';
 
 const KINDS: { kind: CurveKind; title: string; unit: string }[] = [
   { kind: 'light', title: 'Lights', unit: 'relative power' },
   { kind: 'filter', title: 'Filters', unit: 'transmittance' },
   { kind: 'medium', title: 'Media', unit: 'relative sensitivity' },
 ];
-const GRID = Array.from({ length: 81 }, (_, i) => 380 + 5 * i);
 type Selected = { type: 'builtin'; item: LibraryItemView } | { type: 'curve'; curve: CurveView } | null;
 type AddMode = 'table' | 'parametric' | 'gel';
 
 export default function LibraryPage() {
   const pid = Number(useParams().productionId);
-  const prod = useProduction(pid);
-  const canEdit = !!prod.data && roleAtLeast(prod.data.production.myRole, 'editor');
+  const { member } = useMember(pid);
+  const canEdit = !!member && roleAtLeast(member.role, 'editor');
   const library = useLibrary();
   const curves = useCurves(pid);
   const create = useCreateCurve(pid);
@@ -84,7 +84,7 @@ export default function LibraryPage() {
                 <h2>{sel.type === 'builtin' ? sel.item.name : sel.curve.name}</h2>
                 <p className="mt-1 text-sm text-ink-soft">{sel.type === 'builtin' ? sel.item.description : sel.curve.notes}</p>
                 <CurveChart
-                  series={[{ label: sel.type === 'builtin' ? sel.item.name : sel.curve.name, pairs: sel.type === 'builtin' ? GRID.map((nm, i) => [nm, sel.item.values[i]]) : sel.curve.samples }]}
+                  series={[{ label: sel.type === 'builtin' ? sel.item.name : sel.curve.name, pairs: sel.type === 'builtin' ? GRID_NM_LIST.map((nm, i) => [nm, sel.item.values[i]]) : sel.curve.samples }]}
                   yLabel={KINDS.find((k) => k.kind === selKind)!.unit} yMax={selKind === 'filter' ? 1 : undefined} />
                 <dl className="mt-2 grid gap-1 text-xs">
                   <div><dt className="inline font-medium">Where it came from: </dt><dd className="inline text-ink-soft">{sel.type === 'builtin' ? `${sel.item.note}${sel.item.generic ? '' : ' (published data)'}` : sel.curve.source}</dd></div>

@@ -10,8 +10,9 @@ import { SpectraChart } from '../../features/bench/components/spectra-chart';
 import { useBoards } from '../../features/boards/api/get-boards';
 import { useBoardTones } from '../../features/boards/api/get-board-tones';
 import { useSwatches } from '../../features/swatches/api/get-swatches';
-import { SplitChip } from '../../features/boards/components/split-chip';
+import { SplitChip } from '../../components/ui/split-chip';
 import { MAX_COMPARE_LOOKS } from '../../../shared/schemas/look';
+import { paths } from '../../lib/paths';
 
 export default function LooksComparePage() {
   const pid = Number(useParams().productionId);
@@ -38,7 +39,7 @@ export default function LooksComparePage() {
     <>
       <PageHeader
         title="Compare looks"
-        subtitle={<>Side by side, through the same board. <Link to={`/p/${pid}/looks`} className="text-accent underline">Choose other looks</Link>.</>}
+        subtitle={<>Side by side, through the same board. <Link to={paths.production(pid).looks()} className="text-accent underline">Choose other looks</Link>.</>}
         actions={
           <label className="flex items-center gap-2 text-sm">
             Board
@@ -57,7 +58,7 @@ export default function LooksComparePage() {
           const names = (sid: number) => (t?.merges ?? []).filter((m) => m.a === sid || m.b === sid).map((m) => swatchById.get(m.a === sid ? m.b : m.a)?.name ?? '');
           return (
             <Card key={id} className="min-w-0">
-              <h2 className="mb-1"><Link to={`/p/${pid}/bench/${id}`} className="hover:text-accent">{look?.name ?? `Look ${id}`}</Link></h2>
+              <h2 className="mb-1"><Link to={paths.production(pid).bench(id)} className="hover:text-accent">{look?.name ?? `Look ${id}`}</Link></h2>
               {a ? (
                 <div className="grid gap-3">
                   <LookPathLine analysis={a} />

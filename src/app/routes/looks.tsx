@@ -3,19 +3,21 @@ import { Link, useNavigate, useParams } from 'react-router-dom';
 import { PageHeader, Card } from '../../components/ui/card';
 import { Button } from '../../components/ui/button';
 import { ErrorMessage, Spinner } from '../../components/ui/alert';
-import { useProduction } from '../../features/productions/api/get-production';
+import { useMember } from '../../features/productions/hooks/use-member';
 import { useLooks } from '../../features/looks/api/get-looks';
 import { useLookAnalyses } from '../../features/looks/api/get-look-analysis';
 import { useDuplicateLook } from '../../features/looks/api/duplicate-look';
 import { FactorLine, LookPathLine } from '../../features/looks/components/look-summary';
-import { roleAtLeast } from '../../../shared/schemas/roles';
+import { roleAtLeast } from '../../../shared/policy/department';
 import { MAX_COMPARE_LOOKS } from '../../../shared/schemas/look';
+import { paths } from '../../lib/paths';
 
 export default function LooksPage() {
   const pid = Number(useParams().productionId);
   const navigate = useNavigate();
-  const prod = useProduction(pid);
-  const canEdit = !!prod.data && roleAtLeast(prod.data.production.myRole, 'editor');
+  const to = paths.production(pid);
+  const { member } = useMember(pid);
+  const canEdit = !!member && roleAtLeast(member.role, 'editor');
   const looks = useLooks(pid);
   const ids = looks.data?.looks.map((l) => l.id) ?? [];
   const analyses = useLookAnalyses(pid, ids);
@@ -30,8 +32,8 @@ export default function LooksPage() {
         subtitle="Saved presets: light, filters, medium, development and print. Pick up to four to compare side by side."
         actions={
           <>
-            <Button disabled={picked.length < 2} onClick={() => navigate(`/p/${pid}/looks/compare?ids=${picked.join(',')}`)}>Compare {picked.length ? `(${picked.length})` : ''}</Button>
-            {canEdit && <Button variant="primary" onClick={() => navigate(`/p/${pid}/bench/new`)}>New look</Button>}
+            <Button disabled={picked.length < 2} onClick={() => navigate(to.compare(picked))}>Compare {picked.length ? `(${picked.length})` : ''}</Button>
+            {canEdit && <Button variant="primary" onClick={() => navigate(to.bench('new'))}>New look</Button>}
           </>
         }
       />
@@ -46,7 +48,7 @@ export default function LooksPage() {
             <Card key={l.id} className={on ? 'border-accent ring-1 ring-accent' : ''}>
               <div className="mb-2 flex items-start justify-between gap-2">
                 <div>
-                  <h2><Link to={`/p/${pid}/bench/${l.id}`} className="hover:text-accent">{l.name}</Link></h2>
+                  <h2><Link to={to.bench(l.id)} className="hover:text-accent">{l.name}</Link></h2>
                   {l.notes && <p className="mt-0.5 text-sm text-ink-soft">{l.notes}</p>}
                 </div>
                 <label className="flex shrink-0 items-center gap-1 text-sm">
@@ -61,8 +63,8 @@ export default function LooksPage() {
                 </div>
               ) : <Spinner label="Computing…" />}
               <div className="mt-3 flex gap-2">
-                <Link to={`/p/${pid}/bench/${l.id}`} className="rounded-md border border-paper-line bg-paper-raised px-3 py-1.5 text-sm hover:bg-paper-sunk">Open on the bench</Link>
-                {canEdit && <Button variant="ghost" onClick={() => duplicate.mutate({ pid, id: l.id }, { onSuccess: (r) => navigate(`/p/${pid}/bench/${r.look.id}`) })}>Duplicate</Button>}
+                <Link to={to.bench(l.id)} className="rounded-md border border-paper-line bg-paper-raised px-3 py-1.5 text-sm hover:bg-paper-sunk">Open on the bench</Link>
+                {canEdit && <Button variant="ghost" onClick={() => duplicate.mutate({ pid, id: l.id }, { onSuccess: (r) => navigate(to.bench(r.look.id)) })}>Duplicate</Button>}
               </div>
             </Card>
           );

@@ -8,6 +8,7 @@ import { useProductions } from '../../features/productions/api/get-productions';
 import { useCreateProduction } from '../../features/productions/api/create-production';
 import { productionCreateSchema } from '../../../shared/schemas/auth';
 import { zodFieldErrors } from '../../lib/form-errors';
+import { paths } from '../../lib/paths';
 
 export default function ProductionsPage() {
   const list = useProductions();
@@ -21,7 +22,7 @@ export default function ProductionsPage() {
     const parsed = productionCreateSchema.safeParse(Object.fromEntries(new FormData(e.currentTarget)));
     if (!parsed.success) return setErrors(zodFieldErrors(parsed.error));
     setErrors({});
-    create.mutate(parsed.data, { onSuccess: (r) => navigate(`/p/${r.production.id}`) });
+    create.mutate(parsed.data, { onSuccess: (r) => navigate(paths.production(r.production.id).root()) });
   }
 
   return (
@@ -52,7 +53,7 @@ export default function ProductionsPage() {
       <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
         {list.data?.productions.map((p) => (
           <li key={p.id}>
-            <Link to={`/p/${p.id}`} className="block h-full rounded-lg border border-paper-line bg-paper-raised p-4 hover:border-accent">
+            <Link to={paths.production(p.id).root()} className="block h-full rounded-lg border border-paper-line bg-paper-raised p-4 hover:border-accent">
               <div className="flex items-start justify-between gap-2">
                 <h2>{p.name}</h2>
                 {p.isDemo && <span className="rounded bg-paper-sunk px-1.5 py-0.5 text-[10px] uppercase tracking-wide text-ink-mute">invented demo</span>}

@@ -8,6 +8,7 @@ import { useSetup } from '../../features/auth/api/setup';
 import { useMe } from '../../features/auth/api/get-me';
 import { setupSchema } from '../../../shared/schemas/auth';
 import { zodFieldErrors } from '../../lib/form-errors';
+import { paths } from '../../lib/paths';
 
 /** The first account on an empty site; it becomes the site admin. */
 export default function SetupPage() {
@@ -15,14 +16,14 @@ export default function SetupPage() {
   const setup = useSetup();
   const navigate = useNavigate();
   const [errors, setErrors] = useState<Record<string, string>>({});
-  if (me.data && !me.data.needsSetup) return <Navigate to="/" replace />;
+  if (me.data && !me.data.needsSetup) return <Navigate to={paths.home()} replace />;
   function submit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
     const fd = new FormData(e.currentTarget);
     const parsed = setupSchema.safeParse(Object.fromEntries(fd));
     if (!parsed.success) return setErrors(zodFieldErrors(parsed.error));
     setErrors({});
-    setup.mutate(parsed.data, { onSuccess: () => navigate('/') });
+    setup.mutate(parsed.data, { onSuccess: () => navigate(paths.home()) });
   }
   return (
     <AuthLayout title="Create the first account">

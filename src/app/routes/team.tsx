@@ -11,9 +11,10 @@ import { useRemoveMember } from '../../features/team/api/remove-member';
 import { useInvitations } from '../../features/team/api/get-invitations';
 import { useCreateInvitation } from '../../features/team/api/create-invitation';
 import { useRevokeInvitation } from '../../features/team/api/revoke-invitation';
-import { DEPARTMENTS, ROLES, type Department, type Role } from '../../../shared/schemas/roles';
+import { DEPARTMENTS, ROLES } from '../../../shared/schemas/roles';
+import { MemberTable } from '../../features/team/components/member-table';
 import { invitationCreateSchema } from '../../../shared/schemas/auth';
-import { apiFieldError, zodFieldErrors } from '../../lib/form-errors';
+import { useFormCheck } from '../../lib/use-form-check';
 
 export default function TeamPage() {
   const pid = Number(useParams().productionId);
@@ -25,21 +26,20 @@ export default function TeamPage() {
   const remove = useRemoveMember(pid);
   const invite = useCreateInvitation(pid);
   const revoke = useRevokeInvitation(pid);
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const { errors, check, fromServer } = useFormCheck();
   const [sent, setSent] = useState<string | null>(null);
 
   function submit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = e.currentTarget;
-    const parsed = invitationCreateSchema.safeParse(Object.fromEntries(new FormData(form)));
-    if (!parsed.success) return setErrors(zodFieldErrors(parsed.error));
-    setErrors({});
-    invite.mutate({ pid, ...parsed.data }, {
+    const input = check(invitationCreateSchema, Object.fromEntries(new FormData(form)));
+    if (!input) return;
+    invite.mutate({ pid, ...input }, {
       onSuccess: (r) => {
         setSent(r.invitation.email);
         form.reset();
       },
-      onError: (err) => setErrors(apiFieldError(err)),
+      onError: fromServer,
     });
   }
 
@@ -48,43 +48,7 @@ export default function TeamPage() {
       <PageHeader title="Team" subtitle="Roles: viewers read; contributors edit their own department's swatches and boards; editors also edit looks and the library; owners manage the team." />
       {members.isPending && <Spinner />}
       <ErrorMessage error={members.error ?? update.error ?? remove.error} />
-      <Card className="mb-6 overflow-x-auto p-0">
-        <table className="w-full text-sm">
-          <caption className="sr-only">Members</caption>
-          <thead className="border-b border-paper-line text-left text-xs uppercase tracking-wide text-ink-mute">
-            <tr><th className="px-4 py-2">Name</th><th className="px-4 py-2">E-mail</th><th className="px-4 py-2">Department</th><th className="px-4 py-2">Role</th>{isOwner && <th className="px-4 py-2"><span className="sr-only">Actions</span></th>}</tr>
-          </thead>
-          <tbody>
-            {members.data?.members.map((m) => (
-              <tr key={m.id} className="border-b border-paper-line last:border-0">
-                <td className="px-4 py-2 font-medium">{m.user.name}</td>
-                <td className="px-4 py-2 text-ink-soft">{m.user.email}</td>
-                <td className="px-4 py-2">
-                  {isOwner ? (
-                    <select aria-label={`Department of ${m.user.name}`} className="rounded border border-paper-line bg-paper-raised px-1 py-0.5" value={m.department}
-                      onChange={(e) => update.mutate({ pid, id: m.id, department: e.target.value as Department })}>
-                      {DEPARTMENTS.map((d) => <option key={d}>{d}</option>)}
-                    </select>
-                  ) : m.department}
-                </td>
-                <td className="px-4 py-2">
-                  {isOwner ? (
-                    <select aria-label={`Role of ${m.user.name}`} className="rounded border border-paper-line bg-paper-raised px-1 py-0.5" value={m.role}
-                      onChange={(e) => update.mutate({ pid, id: m.id, role: e.target.value as Role })}>
-                      {ROLES.map((r) => <option key={r}>{r}</option>)}
-                    </select>
-                  ) : m.role}
-                </td>
-                {isOwner && (
-                  <td className="px-4 py-2 text-right">
-                    <Button variant="ghost" onClick={() => confirm(`Remove ${m.user.name} from this production?`) && remove.mutate({ pid, id: m.id })}>Remove</Button>
-                  </td>
-                )}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </Card>
+      <MemberTable members={members.data?.members ?? []} isOwner={isOwner} onChange={(id, change) => update.mutate({ pid, id, ...change })} onRemove={(m) => remove.mutate({ pid, id: m.id })} />
 
       {isOwner && (
         <div className="grid gap-6 lg:grid-cols-2">

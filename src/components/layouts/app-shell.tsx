@@ -3,22 +3,23 @@ import { useMe } from '../../features/auth/api/get-me';
 import { useSignOut } from '../../features/auth/api/sign-out';
 import { useProductions } from '../../features/productions/api/get-productions';
 import { Logo } from '../ui/logo';
+import { paths, type ProductionPaths } from '../../lib/paths';
 
 const navCls = ({ isActive }: { isActive: boolean }) =>
   `rounded-md px-2.5 py-1 text-sm ${isActive ? 'bg-ink text-paper' : 'text-ink-soft hover:bg-paper-sunk'}`;
 
 /** Production-level pages, in menu order. Features add their entries here. */
-const PRODUCTION_NAV: { to: string; label: string; end?: boolean }[] = [
-  { to: '', label: 'Overview', end: true },
+const PRODUCTION_NAV: { to: (p: ProductionPaths) => string; label: string; end?: boolean }[] = [
+  { to: (p) => p.root(), label: 'Overview', end: true },
   // NAV START
-  { to: 'looks', label: 'Looks' },
-  { to: 'bench', label: 'Bench' },
-  { to: 'boards', label: 'Boards' },
-  { to: 'swatches', label: 'Swatches' },
-  { to: 'library', label: 'Library' },
-  { to: 'photos', label: 'Photos' },
+  { to: (p) => p.looks(), label: 'Looks' },
+  { to: (p) => p.bench(), label: 'Bench' },
+  { to: (p) => p.boards(), label: 'Boards' },
+  { to: (p) => p.swatches(), label: 'Swatches' },
+  { to: (p) => p.library(), label: 'Library' },
+  { to: (p) => p.photos(), label: 'Photos' },
   // NAV END
-  { to: 'team', label: 'Team' },
+  { to: (p) => p.team(), label: 'Team' },
 ];
 
 export function AppShell() {
@@ -34,7 +35,7 @@ export function AppShell() {
     <div className="min-h-screen">
       <header className="no-print sticky top-0 z-20 border-b border-paper-line bg-paper/95 backdrop-blur">
         <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-3 px-4 py-2">
-          <NavLink to="/" className="flex items-center gap-2 font-semibold tracking-tight" aria-label="Grisaille, all productions">
+          <NavLink to={paths.home()} className="flex items-center gap-2 font-semibold tracking-tight" aria-label="Grisaille, all productions">
             <Logo /> Grisaille
           </NavLink>
           <label className="sr-only" htmlFor="production-switcher">Production</label>
@@ -42,7 +43,7 @@ export function AppShell() {
             id="production-switcher"
             className="max-w-[16rem] rounded-md border border-paper-line bg-paper-raised px-2 py-1 text-sm"
             value={pid || ''}
-            onChange={(e) => navigate(e.target.value ? `/p/${e.target.value}` : '/')}
+            onChange={(e) => navigate(e.target.value ? paths.production(e.target.value).root() : paths.home())}
           >
             <option value="">All productions…</option>
             {productions.data?.productions.map((p) => (
@@ -52,17 +53,17 @@ export function AppShell() {
           {pid > 0 && (
             <nav className="flex flex-wrap gap-1" aria-label="Production">
               {PRODUCTION_NAV.map((n) => (
-                <NavLink key={n.label} to={`/p/${pid}${n.to ? '/' + n.to : ''}`} end={n.end} className={navCls}>{n.label}</NavLink>
+                <NavLink key={n.label} to={n.to(paths.production(pid))} end={n.end} className={navCls}>{n.label}</NavLink>
               ))}
             </nav>
           )}
           <div className="ml-auto flex items-center gap-2 text-sm">
-            {user?.isAdmin && me.data?.demo && <NavLink to="/admin/outbox" className={navCls}>Outbox</NavLink>}
+            {user?.isAdmin && me.data?.demo && <NavLink to={paths.outbox()} className={navCls}>Outbox</NavLink>}
             <span className="text-ink-mute" title={user?.email}>{user?.name}</span>
             <button
               type="button"
               className="rounded-md px-2.5 py-1 text-ink-soft hover:bg-paper-sunk"
-              onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in') })}
+              onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn()) })}
             >
               Sign out
             </button>

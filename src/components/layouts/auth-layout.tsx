@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import type { FormEvent, ReactNode } from 'react';
 import { Logo } from '../ui/logo';
 import { ZoneRamp } from '../ui/zone-ramp';
 
@@ -16,5 +16,19 @@ export function AuthLayout({ title, children }: { title: string; children: React
         <p className="mt-2 text-xs text-ink-mute">How every colour on a black-and-white shoot will read as grey.</p>
       </div>
     </div>
+  );
+}
+
+/** A signed-out page's one form (or, once it has done its job, `done` in its place), with `after` below it. */
+export function AuthForm({ title, done, onSubmit, children, after }: { title: string; done?: ReactNode; onSubmit: (e: FormEvent<HTMLFormElement>) => void; children: ReactNode; after?: ReactNode }) {
+  return (
+    <AuthLayout title={title}>
+      {done || (
+        <form onSubmit={onSubmit} className="flex flex-col gap-4" noValidate>
+          {children}
+        </form>
+      )}
+      {after}
+    </AuthLayout>
   );
 }

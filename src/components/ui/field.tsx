@@ -8,43 +8,36 @@ interface Wrap {
   hint?: ReactNode;
 }
 
-function FieldShell({ id, label, error, hint, children }: Wrap & { id: string; children: ReactNode }) {
+/** What every control of a field gets: its id, its invalid state, the error it is described by, the look. */
+interface ControlProps {
+  id: string;
+  'aria-invalid': boolean;
+  'aria-describedby'?: string;
+  className: string;
+}
+
+/** A labelled control with its hint or error below; `control` draws the input, select or text area. */
+function Field({ label, error, hint, id, control: draw }: Wrap & { id?: string; control: (p: ControlProps) => ReactNode }) {
+  const auto = useId();
+  const fid = id ?? auto;
   return (
     <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="text-xs font-medium uppercase tracking-wide text-ink-soft">{label}</label>
-      {children}
+      <label htmlFor={fid} className="text-xs font-medium uppercase tracking-wide text-ink-soft">{label}</label>
+      {draw({ id: fid, 'aria-invalid': !!error, 'aria-describedby': error ? `${fid}-err` : undefined, className: control })}
       {hint && !error && <p className="text-xs text-ink-mute">{hint}</p>}
-      {error && <p id={`${id}-err`} role="alert" className="text-xs text-warn">{error}</p>}
+      {error && <p id={`${fid}-err`} role="alert" className="text-xs text-warn">{error}</p>}
     </div>
   );
 }
 
 export function TextField({ label, error, hint, id, ...rest }: Wrap & InputHTMLAttributes<HTMLInputElement>) {
-  const auto = useId();
-  const fid = id ?? auto;
-  return (
-    <FieldShell id={fid} label={label} error={error} hint={hint}>
-      <input id={fid} aria-invalid={!!error} aria-describedby={error ? `${fid}-err` : undefined} className={control} {...rest} />
-    </FieldShell>
-  );
+  return <Field label={label} error={error} hint={hint} id={id} control={(p) => <input {...p} {...rest} />} />;
 }
 
 export function SelectField({ label, error, hint, id, children, ...rest }: Wrap & SelectHTMLAttributes<HTMLSelectElement>) {
-  const auto = useId();
-  const fid = id ?? auto;
-  return (
-    <FieldShell id={fid} label={label} error={error} hint={hint}>
-      <select id={fid} aria-invalid={!!error} className={control} {...rest}>{children}</select>
-    </FieldShell>
-  );
+  return <Field label={label} error={error} hint={hint} id={id} control={(p) => <select {...p} {...rest}>{children}</select>} />;
 }
 
 export function TextAreaField({ label, error, hint, id, ...rest }: Wrap & TextareaHTMLAttributes<HTMLTextAreaElement>) {
-  const auto = useId();
-  const fid = id ?? auto;
-  return (
-    <FieldShell id={fid} label={label} error={error} hint={hint}>
-      <textarea id={fid} aria-invalid={!!error} className={control} {...rest} />
-    </FieldShell>
-  );
+  return <Field label={label} error={error} hint={hint} id={id} control={(p) => <textarea {...p} {...rest} />} />;
 }

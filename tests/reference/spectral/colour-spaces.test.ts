@@ -4,8 +4,8 @@
  */
 import { converter, differenceCiede2000 } from 'culori';
 import { describe, expect, it } from 'vitest';
-import { labToXyz, linearSrgbToXyz, linearToSrgb, srgbToLinear, srgbToXyz, xyzToLab, xyzToLinearSrgb, type Rgb3 } from '../../../shared/spectral/colour';
-import type { Xyz } from '../../../shared/spectral/integrate';
+import { labToXyz, linearSrgbToXyz, linearToSrgb, srgbDecode, srgbEncode, srgbToLinear, srgbToXyz, xyzToLab, xyzToLinearSrgb, type Rgb3 } from '../../../shared/spectral/colour';
+import type { Xyz } from '../../../shared/spectral/types';
 import { random } from '../../unit/spectral/fixtures';
 
 /** Default tolerance of this file: agreement with culori, 1e-6 (issue requirement). */
@@ -52,6 +52,14 @@ describe('sRGB transfer function (IEC 61966-2-1:1999)', () => {
   });
   it('encodes back (round trip, to the default 1e-6: the standard\'s two segments meet only to about 1e-7)', () => {
     for (const c of samples) linearToSrgb(srgbToLinear(c)).forEach((v, i) => expect(Math.abs(v - c[i])).toBeLessThanOrEqual(TOL));
+  });
+  it('does one channel the same way (srgbDecode / srgbEncode, clamped to 0..1)', () => {
+    for (const c of samples) {
+      c.forEach((v, i) => expect(srgbDecode(v)).toBe(srgbToLinear(c)[i]));
+      const lin = srgbToLinear(c);
+      lin.forEach((v, i) => expect(srgbEncode(v)).toBe(linearToSrgb(lin)[i]));
+    }
+    expect([srgbDecode(-0.5), srgbDecode(1.5), srgbEncode(-0.5), srgbEncode(1.5)]).toEqual([0, srgbDecode(1), 0, srgbEncode(1)]);
   });
   it('uses the IEC primaries matrix', () => {
     const cols: Rgb3[] = [

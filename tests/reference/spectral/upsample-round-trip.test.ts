@@ -9,7 +9,7 @@ import { srgbToLinear, type Rgb3 } from '../../../shared/spectral/colour';
 import { reflectanceFromSrgb } from '../../../shared/spectral/estimate';
 import { xyzOfReflectance } from '../../../shared/spectral/integrate';
 import { cieIlluminant } from '../../../shared/spectral/lights';
-import { blendedReflectance } from '../../../shared/spectral/lut';
+import { blendedReflectance } from '../../../shared/spectral/node-spectra';
 import type { Spectrum } from '../../../shared/spectral/spectrum';
 import { upsampleTable } from '../../unit/spectral/fixtures';
 

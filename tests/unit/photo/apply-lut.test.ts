@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildExposureLut, lutNodeEncoded, sampleExposureLut } from '../../../shared/photo/exposure-lut';
 import { applyLut16, applyLut8, planLut16, planLut8, STOPS_Q } from '../../../shared/photo/apply-lut';
-import { greyOfStops, type ToneCurveTable } from '../../../shared/photo/tone-curve-table';
+import { greyOfStops, type ToneCurveTable } from '../../../shared/look/tone-curve-table';
 import { random } from '../spectral/fixtures';
 
 /**

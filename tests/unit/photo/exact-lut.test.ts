@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { applyExactLut, exactLut } from '../../../shared/photo/exact-lut';
-import { outputCodes, MIN_STOPS, STOPS_Q, MAX_Q } from '../../../shared/photo/apply-lut';
-import { photoLook, type PhotoLookSpectra } from '../../../shared/photo/compose-look';
-import { pixelStops } from '../../../shared/photo/look-photo-model';
+import { outputCodes, MIN_STOPS, STOPS_Q, MAX_Q } from '../../../shared/look/tone-curve-table';
+import { composeLook, type LookSpectra } from '../../../shared/look/compose-look';
+import { photoToneModel, pixelStops } from '../../../shared/photo/look-photo-model';
 import { resolveFilter, resolveLight, resolveMedium } from '../../../shared/spectral/compute';
 import { srgbDecode } from '../../../shared/tone/print';
 import { random, upsampleTable } from '../spectral/fixtures';
@@ -15,7 +15,7 @@ import { random, upsampleTable } from '../spectral/fixtures';
  */
 const TOL_CODES = 0;
 
-const spectra: PhotoLookSpectra = {
+const spectra: LookSpectra = {
   bareLight: resolveLight({ id: 'tungsten-3200' }),
   filters: [{ spectrum: resolveFilter({ longPass: { cutOnNm: 590 } }), on: 'lens' }],
   medium: resolveMedium({ id: 'panchromatic' }),
@@ -25,7 +25,7 @@ const spectra: PhotoLookSpectra = {
 };
 
 describe('the lazy exact table', () => {
-  const model = photoLook(spectra, upsampleTable()).model;
+  const model = photoToneModel(composeLook(spectra), upsampleTable());
   const out16 = outputCodes(model.tone, 16);
   const engineCode = (r: number, g: number, b: number) => {
     const q = Math.min(MAX_Q, Math.max(0, Math.floor((pixelStops(model, srgbDecode(r / 255), srgbDecode(g / 255), srgbDecode(b / 255)) - MIN_STOPS) * STOPS_Q + 0.5)));

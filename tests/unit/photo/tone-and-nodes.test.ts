@@ -1,19 +1,20 @@
 import { describe, expect, it } from 'vitest';
-import { greyOfStops, toneCurveTable, TONE_TABLE_STOPS, zoneOfStops } from '../../../shared/photo/tone-curve-table';
-import { nodeExposuresFrom, nodeReflectances } from '../../../shared/photo/node-reflectances';
-import { photoLook, photoLookFingerprint, type PhotoLookSpectra } from '../../../shared/photo/compose-look';
+import { greyOfStops, toneCurveTable, TONE_TABLE_STOPS, zoneOfStops } from '../../../shared/look/tone-curve-table';
+import { blendedReflectance, nodeExposures, nodeReflectances } from '../../../shared/spectral/node-spectra';
+import { composeLook, lookFingerprint, type LookSpectra } from '../../../shared/look/compose-look';
 import { buildTonePipeline } from '../../../shared/tone/tone-pipeline';
-import { nodeExposures } from '../../../shared/spectral/lut';
 import { resolveFilter, resolveLight, resolveMedium, resolveStack, simulateSwatches } from '../../../shared/spectral/compute';
+import { sigmoidReflectance } from '../../../shared/spectral/upsample';
 import { keyOffsetStops } from '../../../shared/tone/zones';
 import { constantSpectrum } from '../../../shared/spectral/spectrum';
 import { upsampleTable } from '../spectral/fixtures';
+import { pixelExposure } from '../../../shared/photo/look-photo-model';
 
 /** Shared default tolerance (relative or absolute, as each check says): the photo module's own claims. */
 const TOL = 1e-5;
 
 const tone = { developmentStops: 0, ratingStops: 0, printGrade: 3, printExposureStops: 0, shadowDetailStops: null, highlightRollOffStops: null, keyZone: 5 };
-const spectra = (cutOnNm = 590, key: PhotoLookSpectra['key'] = null): PhotoLookSpectra => ({
+const spectra = (cutOnNm = 590, key: LookSpectra['key'] = null): LookSpectra => ({
   bareLight: resolveLight({ id: 'tungsten-3200' }),
   filters: [{ spectrum: resolveFilter({ longPass: { cutOnNm } }), on: 'lens' }],
   medium: resolveMedium({ id: 'panchromatic' }),
@@ -33,25 +34,42 @@ describe('the tabulated tone curve', () => {
 });
 
 describe('node spectra kept for many looks', () => {
-  it('give the node exposures of shared/spectral/lut.ts', () => {
+  it('are the model spectra of the table’s coefficients (float32), and give their exposures', () => {
     const table = upsampleTable();
     const stack = resolveStack({ light: { id: 'd65' }, filters: [{ id: 'orange-550' }], medium: { id: 'orthochromatic' } });
-    const a = nodeExposures(stack, table);
-    const b = nodeExposuresFrom(nodeReflectances(table), stack);
-    for (let i = 0; i < a.length; i += 97) expect(Math.abs(a[i] - b[i])).toBeLessThan(TOL * Math.max(a[i], 1e-3));
+    const refl = nodeReflectances(table);
+    expect(nodeReflectances(table)).toBe(refl); // computed once per table
+    const m = nodeExposures(refl, stack.mediumWeights);
+    const n = table.coefficients.length / 3;
+    for (let k = 0; k < n; k += 997) {
+      const rho = sigmoidReflectance(Array.from(table.coefficients.subarray(3 * k, 3 * k + 3)));
+      const direct = simulateSwatches(stack, [{ name: 'node', reflectance: rho, estimated: true }]).swatches[0].exposure;
+      expect(Math.abs(m[k] - direct)).toBeLessThan(TOL * Math.max(direct, 1e-3));
+    }
+  });
+
+  it('blend into a colour’s estimate whose exposure is the same blend of node exposures', () => {
+    const table = upsampleTable();
+    const stack = resolveStack({ light: { id: 'tungsten-3200' }, filters: [{ id: 'red-590' }], medium: { id: 'panchromatic' } });
+    const m = nodeExposures(nodeReflectances(table), stack.mediumWeights);
+    const model = { upsample: table, nodeM: m };
+    for (const rgb of [[0.6, 0.2, 0.1], [0.05, 0.3, 0.7], [0.5, 0.5, 0.5]] as [number, number, number][]) {
+      const viaSpectrum = simulateSwatches(stack, [{ name: 'c', reflectance: blendedReflectance(table, rgb), estimated: true }]).swatches[0].exposure;
+      expect(Math.abs(pixelExposure(model as never, ...rgb) - viaSpectrum)).toBeLessThan(1e-12);
+    }
   });
 });
 
 describe('a look for photos', () => {
   it('places a key swatch on its zone (keyOffsetStops of the key’s stops)', () => {
     const key = constantSpectrum(0.36);
-    const look = photoLook({ ...spectra(590, key), tone: { ...tone, keyZone: 6 } }, upsampleTable());
-    const keyStops = simulateSwatches(look.stack, [{ name: 'k', reflectance: key, estimated: false }]).swatches[0].stops;
+    const look = composeLook({ ...spectra(590, key), tone: { ...tone, keyZone: 6 } });
+    const keyStops = simulateSwatches(look.path, [{ name: 'k', reflectance: key, estimated: false }]).swatches[0].stops;
     expect(look.offsetStops).toBeCloseTo(keyOffsetStops(keyStops, 6), 9);
   });
 
   it('has a fingerprint that changes with the content only', () => {
-    expect(photoLookFingerprint(spectra())).toBe(photoLookFingerprint(spectra()));
-    expect(photoLookFingerprint(spectra(600))).not.toBe(photoLookFingerprint(spectra()));
+    expect(lookFingerprint(spectra())).toBe(lookFingerprint(spectra()));
+    expect(lookFingerprint(spectra(600))).not.toBe(lookFingerprint(spectra()));
   });
 });

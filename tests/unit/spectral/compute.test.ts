@@ -1,27 +1,19 @@
 import { describe, expect, it } from 'vitest';
-import { filterFactor, prepareStack, resolveStack, resolveSwatch, simulate, simulateSwatches, stopsFromGrey } from '../../../shared/spectral/compute';
+import { filterFactor, prepareStack, resolveStack, resolveSwatch, simulate, simulateSwatches, stopsFromGrey, type SimulationInput } from '../../../shared/spectral/compute';
 import { SpectralInputError } from '../../../shared/spectral/errors';
 import { longPass, neutralDensity } from '../../../shared/spectral/filters';
 import { cieIlluminant } from '../../../shared/spectral/lights';
 import { FLOOR_STOPS, MAX_FILTER_STOPS } from '../../../shared/spectral/limits';
 import { eyeMedium } from '../../../shared/spectral/media';
 import { flat, upsampleTable } from './fixtures';
-import type { SimulateRequest } from '../../../shared/schemas/simulate';
+import { thrown } from './thrown';
 
 /** Default tolerance of this file. */
 const TOL = 1e-9;
 
-function errorOf(fn: () => unknown): SpectralInputError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof SpectralInputError) return e;
-    throw e;
-  }
-  throw new Error('expected a SpectralInputError');
-}
+const errorOf = (fn: () => unknown) => thrown(SpectralInputError, fn);
 
-const req = (r: Partial<SimulateRequest>): SimulateRequest => ({ light: { cie: 'D65' }, filters: [], medium: { id: 'panchromatic' }, swatches: [], ...r });
+const req = (r: Partial<SimulationInput>): SimulationInput => ({ light: { cie: 'D65' }, filters: [], medium: { id: 'panchromatic' }, swatches: [], ...r });
 
 describe('the computation', () => {
   it('gives XYZ with Y = 100 for white, L* = 100, and the tones of DESIGN.md §3', () => {
@@ -82,7 +74,7 @@ describe('resolution errors name the field', () => {
     [{ light: { cie: 'D65', gels: [{ samples: [[400, 2], [700, 1], [550, 1]] }] } }, 'light.gels.0.samples.0.1', /above 1/],
     [{ swatches: [{ name: 'x', lab: [50, 150, 0] }] }, 'swatches.0.lab', /outside the sRGB gamut/],
     [{ swatches: [{ name: 'x', reflectance: [[400, 0.1], [450, 0.1]] }] }, 'swatches.0.reflectance', /at least 3/],
-  ] as [Partial<SimulateRequest>, string, RegExp][])('%j → %s', (partial, field, message) => {
+  ] as [Partial<SimulationInput>, string, RegExp][])('%j → %s', (partial, field, message) => {
     const e = errorOf(() => simulate(req(partial), upsampleTable()));
     expect(e.field).toBe(field);
     expect(e.reason).toMatch(message);

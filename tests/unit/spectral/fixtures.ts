@@ -2,12 +2,16 @@
 import { buildUpsampleTable, type UpsampleTable } from '../../../shared/spectral/upsample-table';
 import { makeSpectrum, type Spectrum } from '../../../shared/spectral/spectrum';
 import { GRID_NM } from '../../../shared/spectral/grid';
+import { readRunUpsampleTable } from '../../setup/upsample-table-file';
 
 let table: UpsampleTable | null = null;
 
-/** The upsampling table, built once per test file (about a second). */
+/**
+ * The upsampling table: built once per test run by the global setup (tests/setup/upsample-table.global.ts)
+ * and read from its file here; built in this file's process when run without it (about a second).
+ */
 export function upsampleTable(): UpsampleTable {
-  table ??= buildUpsampleTable();
+  table ??= readRunUpsampleTable() ?? buildUpsampleTable();
   return table;
 }
 

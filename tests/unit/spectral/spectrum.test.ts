@@ -4,21 +4,14 @@ import { SpectralInputError } from '../../../shared/spectral/errors';
 import { GRID_NM } from '../../../shared/spectral/grid';
 import { GRID_SIZE } from '../../../shared/spectral/policy';
 import { makeSpectrum, multiply, resample, spectrumFromPairs, toPairs, valueAt } from '../../../shared/spectral/spectrum';
+import { thrown } from './thrown';
 
 /** Default tolerance: exact arithmetic up to rounding. */
 const TOL = 1e-12;
 
 const cover = (f: (nm: number) => number, step = 10): [number, number][] => Array.from({ length: Math.round(400 / step) + 1 }, (_, i) => [380 + i * step, f(380 + i * step)]);
 
-function errorOf(fn: () => unknown): SpectralInputError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof SpectralInputError) return e;
-    throw e;
-  }
-  throw new Error('expected a SpectralInputError');
-}
+const errorOf = (fn: () => unknown) => thrown(SpectralInputError, fn);
 
 describe('reading [nm, value] pairs', () => {
   it('accepts any order and spacing and resamples onto the 81-sample grid (linear inside, constant outside)', () => {

@@ -8,21 +8,15 @@ const CLASSIC_THRESHOLD_STOPS = 4;
 const MODERN_THRESHOLD_STOPS = 5;
 
 describe('tone defaults per medium', () => {
-  it('classic media lose detail 4 stops under the key (fact of the trade, common practice)', () => {
-    for (const id of ['medium.blue-sensitive', 'medium.orthochromatic']) {
+  it.each([
+    ['classic', CLASSIC_THRESHOLD_STOPS, ['medium.blue-sensitive', 'medium.orthochromatic']],
+    ['modern', MODERN_THRESHOLD_STOPS, ['medium.panchromatic', 'medium.panchromatic-extended-red']],
+  ] as const)('%s media lose detail %d stops under the key (fact of the trade, common practice)', (family, thresholdStops, ids) => {
+    for (const id of ids) {
       const d = mediumToneDefaults(id);
       expect(d.kind).toBe('negative');
-      expect(d.family).toBe('classic');
-      expect(d.shadowDetailStops).toBe(CLASSIC_THRESHOLD_STOPS);
-    }
-  });
-
-  it('modern negatives lose detail 5 stops under the key (fact of the trade, common practice)', () => {
-    for (const id of ['medium.panchromatic', 'medium.panchromatic-extended-red']) {
-      const d = mediumToneDefaults(id);
-      expect(d.kind).toBe('negative');
-      expect(d.family).toBe('modern');
-      expect(d.shadowDetailStops).toBe(MODERN_THRESHOLD_STOPS);
+      expect(d.family).toBe(family);
+      expect(d.shadowDetailStops).toBe(thresholdStops);
     }
   });
 

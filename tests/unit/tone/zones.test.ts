@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { MIDDLE_GREY, keyOffsetStops, placeOnZones, stopsFromMiddleGrey, toneFlags, zoneFromStops, zoneNumeral } from '../../../shared/tone/zones';
+import { MIDDLE_GREY } from '../../../shared/spectral/limits';
+import { ZONE_NUMERALS, keyOffsetStops, placeOnZones, stopsFromMiddleGrey, toneFlags, zoneFromStops, zoneNumeral } from '../../../shared/tone/zones';
 
 /** Shared default tolerance for this file (stops). */
 const TOL = 1e-9;
@@ -23,6 +24,7 @@ describe('zones', () => {
 
   it('writes zones 0..X and clamps outside', () => {
     expect([0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10].map(zoneNumeral).join(' ')).toBe('0 I II III IV V VI VII VIII IX X');
+    expect(ZONE_NUMERALS.join(' ')).toBe('0 I II III IV V VI VII VIII IX X');
     expect(zoneNumeral(-2)).toBe('0');
     expect(zoneNumeral(12.4)).toBe('X');
     expect(zoneNumeral(6.4)).toBe('VI');

@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import { apiPaths } from '../../../lib/paths';
 
 export interface InvitationInfo {
   email: string;
@@ -9,6 +10,6 @@ export interface InvitationInfo {
   hasAccount: boolean;
   expiresAt: string;
 }
-export const getInvitation = (token: string) => api.get<{ invitation: InvitationInfo }>(`/api/invitations/${encodeURIComponent(token)}`);
+export const getInvitation = (token: string) => api.get<{ invitation: InvitationInfo }>(apiPaths.invitation(token).root());
 export const invitationQueryOptions = (token: string) => queryOptions({ queryKey: ['invitation', token], queryFn: () => getInvitation(token) });
 export const useInvitation = (token: string) => useQuery(invitationQueryOptions(token));

@@ -26,6 +26,11 @@ export function optionsFor(kind: CurveKind, library: LibraryItemLike[], curves: 
   ];
 }
 
+/** The light, filter and medium pickers' options from the built-in library and the production's curves. */
+export function lookOptions(library: LibraryItemLike[] = [], curves: CurveView[] = []): Record<'light' | 'filter' | 'medium', PathOption[]> {
+  return { light: optionsFor('light', library, curves), filter: optionsFor('filter', library, curves), medium: optionsFor('medium', library, curves) };
+}
+
 /** A picker value → a reference of the look. */
 export function refOf(value: string): { curveId: number } | { source: { id: string } } {
   if (value.startsWith('curve:')) return { curveId: Number(value.slice(6)) };

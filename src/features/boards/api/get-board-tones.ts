@@ -2,6 +2,7 @@ import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query'
 import { api } from '../../../lib/api-client';
 import type { BoardTones } from '../../../../shared/schemas/board';
 import { boardQueryOptions } from './get-board';
+import { apiPaths } from '../../../lib/paths';
 
 export interface BoardTonesParams {
   looks?: number[];
@@ -13,7 +14,7 @@ export const getBoardTones = (pid: number, id: number, p: BoardTonesParams, sign
   if (p.looks?.length) q.set('looks', p.looks.join(','));
   if (p.mergeStops !== undefined) q.set('mergeStops', String(p.mergeStops));
   if (p.mergeDeltaE !== undefined) q.set('mergeDeltaE', String(p.mergeDeltaE));
-  return api.get<{ tones: BoardTones }>(`/api/productions/${pid}/boards/${id}/tones${q.size ? `?${q}` : ''}`, { signal });
+  return api.get<{ tones: BoardTones }>(apiPaths.production(pid).board(id).tones(q), { signal });
 };
 /** Tones are computed on the server per request; the previous answer stays on screen while the next one loads. */
 export const boardTonesQueryOptions = (pid: number, id: number, p: BoardTonesParams = {}) =>

@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import { createColumnHelper, createSortedRowModel, rowSortingFeature, sortFn_alphanumeric, tableFeatures, useTable, type SortingState } from '@tanstack/react-table';
 import { useState } from 'react';
 import type { SwatchTone } from '../../../../shared/schemas/board';
-import { greyCss, signedStops } from '../lib/format';
+import { greyCss, signedStops } from '../../../lib/tone-format';
 import { downloadText, toCsv } from '../lib/board-csv';
 
 export interface BoardRow {

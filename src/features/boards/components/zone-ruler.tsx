@@ -1,8 +1,8 @@
 import { useLayoutEffect, useRef, useState } from 'react';
 import type { SwatchTone } from '../../../../shared/schemas/board';
-import { signedStops } from '../lib/format';
+import { signedStops } from '../../../lib/tone-format';
+import { ZONES } from '../../../lib/zones';
 
-const NUMERALS = ['0', 'I', 'II', 'III', 'IV', 'V', 'VI', 'VII', 'VIII', 'IX', 'X'];
 /** Label lanes on each side of the ramp, and their spacing, px. */
 const LANES = 3;
 const LANE_PX = 17;
@@ -60,7 +60,7 @@ export function ZoneRuler({ pins, title }: { pins: RulerPin[]; title: string }) 
   return (
     <div ref={ref} className="relative select-none" style={{ paddingTop: pad, paddingBottom: pad }} role="group" aria-label={title}>
       <div className="flex overflow-hidden rounded border border-paper-line" style={{ height: RAMP_PX }} aria-hidden="true">
-        {NUMERALS.map((n, z) => (
+        {ZONES.map(({ zone: z, numeral: n }) => (
           <div key={n} className="flex flex-1 items-center justify-center text-[10px] font-medium" style={{ background: `var(--zone-${z})`, color: z < 6 ? 'rgba(255,255,255,.8)' : 'rgba(0,0,0,.7)' }}>{n}</div>
         ))}
       </div>

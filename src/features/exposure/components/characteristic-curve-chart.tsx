@@ -2,6 +2,8 @@ import { useMemo } from 'react';
 import { CartesianGrid, ComposedChart, Line, ReferenceArea, ReferenceLine, ResponsiveContainer, Scatter, Tooltip, XAxis, YAxis } from 'recharts';
 import { buildTonePipeline, type ToneSettingsLike } from '../../../../shared/tone/tone-pipeline';
 import { sampleCurve } from '../../../../shared/tone/characteristic-curve';
+import { stopsFromZone } from '../../../../shared/tone/zones';
+import { ZONES } from '../../../lib/zones';
 
 /** A swatch to pin on the curve: its tone in stops from middle grey (key already placed unless `offsetStops`). */
 export interface CurveSwatch {
@@ -60,7 +62,7 @@ export function CharacteristicCurveChart({ mediumId, settings, offsetStops = 0, 
       const x = Math.min(to, Math.max(from, xOfStops(r.stops)));
       return { x, y: negative ? (r.density ?? 0) : r.srgb8, name: s.name, colour: s.colour, zone: r.zone, numeral: r.numeral, stops: r.stops, density: r.density, grey: r.srgb8, lost: r.lost, blown: r.blown };
     });
-    const zones = Array.from({ length: 11 }, (_, z) => ({ z, x: xOfStops(z - 5), numeral: ['0', 'I', 'II', 'III', 'IV', 'V', 'VI', 'VII', 'VIII', 'IX', 'X'][z] }));
+    const zones = ZONES.map(({ zone: z, numeral }) => ({ z, x: xOfStops(stopsFromZone(z)), numeral }));
     return {
       negative, line, pins, zones, from, to,
       shadowX: xOfStops(-p.shadowDetailStops),

@@ -5,6 +5,7 @@ import { developmentGammaFactor, developmentSpeedStops, DEVELOPMENT_STOPS_RANGE 
 import { GRADE_RANGE } from '../../../../shared/tone/print';
 import { formatStops } from '../../../../shared/tone/ei-chain';
 import { roundToIsoSeries } from '../../../../shared/tone/iso-series';
+import { ZONES } from '../../../lib/zones';
 
 export interface ToneSettingsFormProps {
   /** the tone model's medium id: its defaults fill the placeholders */
@@ -25,7 +26,6 @@ const ALL_SECTIONS: readonly ToneSection[] = ['box', 'development', 'print', 'ke
 type Field = 'boxSpeed' | 'developmentStops' | 'ratingStops' | 'printGrade' | 'printExposureStops' | 'keySwatchId' | 'keyZone' | 'shadowDetailStops' | 'highlightRollOffStops';
 const NULLABLE: Field[] = ['boxSpeed', 'keySwatchId', 'shadowDetailStops', 'highlightRollOffStops'];
 const THIRDS = Array.from({ length: 19 }, (_, i) => Math.round(((i - 12) / 3) * 1000) / 1000); // −4 .. +2 stops
-const NUMERALS = ['0', 'I', 'II', 'III', 'IV', 'V', 'VI', 'VII', 'VIII', 'IX', 'X'];
 const control = 'w-full rounded-md border border-paper-line bg-paper-raised px-2 py-1 text-sm aria-[invalid=true]:border-warn disabled:bg-paper-sunk';
 
 const toText = (v: ToneSettings): Record<Field, string> => ({
@@ -128,7 +128,7 @@ export function ToneSettingsForm({ mediumId, value, onChange, keySwatches = [], 
           ))}
           {row('keyZone', 'on zone', (
             <select id={`${uid}-keyZone`} className={control} disabled={disabled} value={Math.round(value.keyZone)} onChange={(e) => edit('keyZone', e.target.value)}>
-              {NUMERALS.map((n, z) => <option key={n} value={z}>zone {n}</option>)}
+              {ZONES.map(({ zone: z, numeral: n }) => <option key={n} value={z}>zone {n}</option>)}
             </select>
           ))}
           {show('box') && !show('development') ? boxField : <span />}

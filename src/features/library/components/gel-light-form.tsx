@@ -4,6 +4,7 @@ import { SelectField, TextField } from '../../../components/ui/field';
 import { ErrorMessage } from '../../../components/ui/alert';
 import type { CurveCreateInput, FilterRef, LightRef } from '../../../../shared/schemas/curve';
 import { curveCreateSchema } from '../../../../shared/schemas/curve';
+import { GRID_NM_LIST } from '../../../../shared/spectral/grid';
 import { apiFieldError, zodFieldErrors } from '../../../lib/form-errors';
 import { CurveChart } from './curve-chart';
 
@@ -14,7 +15,6 @@ export interface PickItem {
 }
 
 const ref = (v: string): LightRef & FilterRef => (v.startsWith('curve:') ? { curveId: Number(v.slice(6)) } : { source: { id: v.slice(4) } });
-const GRID = Array.from({ length: 81 }, (_, i) => 380 + 5 * i);
 
 /** A light through one or two gels: the product of the lamp and the gels' transmittance, renormalised. Previewed here; made by the engine on save. */
 export function GelLightForm({ lights, filters, pending, error, onSubmit }: { lights: PickItem[]; filters: PickItem[]; pending: boolean; error: unknown; onSubmit: (input: CurveCreateInput, reset: () => void) => void }) {
@@ -50,8 +50,8 @@ export function GelLightForm({ lights, filters, pending, error, onSubmit }: { li
       </div>
       {L.length > 0 && (
         <CurveChart yLabel="relative power" yMax={1} height={170} series={[
-          { label: 'the lamp', pairs: GRID.map((nm, i) => [nm, L[i] / Math.max(1e-12, ...L)]) },
-          { label: 'through the gel', pairs: GRID.map((nm, i) => [nm, product[i] / peak]) },
+          { label: 'the lamp', pairs: GRID_NM_LIST.map((nm, i) => [nm, L[i] / Math.max(1e-12, ...L)]) },
+          { label: 'through the gel', pairs: GRID_NM_LIST.map((nm, i) => [nm, product[i] / peak]) },
         ]} />
       )}
       <TextField label="Name" value={name} onChange={(e) => setName(e.target.value)} error={errors.name ?? serverErrors.name} placeholder="e.g. Tungsten through the pale cyan gel" />

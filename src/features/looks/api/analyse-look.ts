@@ -3,13 +3,14 @@ import { api } from '../../../lib/api-client';
 import type { LookTones } from '../../../../shared/schemas/board';
 import type { LookAnalysis, LookAnalyseInput } from '../../../../shared/schemas/look';
 import { looksQueryOptions } from './get-looks';
+import { apiPaths } from '../../../lib/paths';
 
 export interface AnalyseAnswer {
   analysis: LookAnalysis;
   board: { tones: LookTones; swatches: { id: number; name: string; hex: string; estimated: boolean }[] } | null;
 }
 export const analyseLook = (pid: number, input: LookAnalyseInput, signal?: AbortSignal) =>
-  api.post<AnalyseAnswer>(`/api/productions/${pid}/looks/analyse`, input, { signal });
+  api.post<AnalyseAnswer>(apiPaths.production(pid).analyseLook(), input, { signal });
 /**
  * The analysis of an unsaved look (the bench while it is edited), computed on the server. The caller
  * debounces the input; the previous answer stays on screen while the next one is computed.

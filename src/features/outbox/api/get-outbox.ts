@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import { apiPaths } from '../../../lib/paths';
 
 export interface OutboxMessage {
   id: number;
@@ -10,6 +11,6 @@ export interface OutboxMessage {
   html: string;
   createdAt: string;
 }
-export const getOutbox = () => api.get<{ messages: OutboxMessage[] }>('/api/admin/outbox');
+export const getOutbox = () => api.get<{ messages: OutboxMessage[] }>(apiPaths.outbox());
 export const outboxQueryOptions = () => queryOptions({ queryKey: ['admin', 'outbox'], queryFn: getOutbox, refetchInterval: 5000 });
 export const useOutbox = () => useQuery(outboxQueryOptions());

@@ -1,8 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import type { RenderStatus } from '../../../../shared/schemas/photo';
+import { apiPaths } from '../../../lib/paths';
 
-export const getRender = (pid: number, photoId: number, key: string) => api.get<{ render: RenderStatus }>(`/api/productions/${pid}/photos/${photoId}/renders/${key}`);
+export const getRender = (pid: number, photoId: number, key: string) => api.get<{ render: RenderStatus }>(apiPaths.production(pid).photo(photoId).render(key));
 /** Polls every 250 ms while the render is queued or running. */
 export const renderQueryOptions = (pid: number, photoId: number, key: string) =>
   queryOptions({

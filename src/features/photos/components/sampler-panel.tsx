@@ -2,20 +2,11 @@ import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { ErrorMessage, Notice } from '../../../components/ui/alert';
-import { toRoman } from '../../../lib/roman';
+import { zoneNumeral } from '../../../../shared/tone/zones';
 import { DEPARTMENTS, type Department } from '../../../../shared/schemas/roles';
-import { toHex } from '../lib/region';
+import { toHex, type SampleReading } from '../lib/region';
 
-export interface SampleReading {
-  /** mean colour, sRGB-encoded 0..1 */
-  colour: [number, number, number];
-  stops: number;
-  zone: number;
-  /** output grey 0..1 */
-  grey: number;
-  /** in the original's pixels */
-  rect: [number, number, number, number];
-}
+export type { SampleReading };
 
 const fmtStops = (s: number) => `${s >= 0 ? '+' : '−'}${Math.abs(s).toFixed(1)} stops`;
 
@@ -49,7 +40,7 @@ export function SamplerPanel({ reading, lookName, photoName, canKeep, canChooseD
           <span className="flex-1" style={{ background: grey }} />
         </div>
         <dl className="grid grid-cols-[auto_1fr] gap-x-3 text-xs">
-          <dt className="text-ink-mute">Zone</dt><dd className="font-semibold" data-testid="sample-zone">{toRoman(reading.zone)}</dd>
+          <dt className="text-ink-mute">Zone</dt><dd className="font-semibold" data-testid="sample-zone">{zoneNumeral(reading.zone)}</dd>
           <dt className="text-ink-mute">Tone</dt><dd className="tabular">{fmtStops(reading.stops)}</dd>
           <dt className="text-ink-mute">Colour</dt><dd className="tabular">{hex}</dd>
           <dt className="text-ink-mute">Region</dt><dd className="tabular">{reading.rect[2]} × {reading.rect[3]} px</dd>

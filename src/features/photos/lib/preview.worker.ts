@@ -7,35 +7,36 @@
 import { decodeUpsampleTable, type UpsampleTable } from '../../../../shared/spectral/upsample-table';
 import { resolveFilter, resolveLight } from '../../../../shared/spectral/compute';
 import { makeSpectrum } from '../../../../shared/spectral/spectrum';
-import { nodeReflectances } from '../../../../shared/photo/node-reflectances';
-import { photoLook, type PhotoLookSpectra } from '../../../../shared/photo/compose-look';
-import { buildPhotoLut } from '../../../../shared/photo/look-photo-model';
+import { nodeReflectances } from '../../../../shared/spectral/node-spectra';
+import { composeLook, type LookSpectra } from '../../../../shared/look/compose-look';
+import { buildPhotoLut, photoToneModel } from '../../../../shared/photo/look-photo-model';
 import { planLut8, applyLut8, type LutPlan8 } from '../../../../shared/photo/apply-lut';
-import { greyOfStops, type ToneCurveTable } from '../../../../shared/photo/tone-curve-table';
+import { greyOfStops, type ToneCurveTable } from '../../../../shared/look/tone-curve-table';
 import { api } from '../../../lib/api-client';
 import type { ExposureLut } from '../../../../shared/photo/exposure-lut';
 import type { PhotoLookView } from '../../../../shared/schemas/photo';
 import type { ToneSettings } from '../../../../shared/schemas/exposure';
 import { editedFilterSource, editedLightSource, type LookEdits } from './look-edits';
 import type { FromWorker, PreviewLut, ToWorker } from './preview-protocol';
+import { apiPaths } from '../../../lib/paths';
 
 declare const self: DedicatedWorkerGlobalScope;
 const post = (m: FromWorker, transfer: Transferable[] = []) => self.postMessage(m, transfer);
 
-let tables: Promise<{ upsample: UpsampleTable; reflectances: Float32Array }> | null = null;
+let tables: Promise<{ upsample: UpsampleTable }> | null = null;
 function loadTables() {
   tables ??= (async () => {
     const t0 = performance.now();
-    const blob = await api.get<Blob>('/api/library/upsample-table', { blob: true });
+    const blob = await api.get<Blob>(apiPaths.upsampleTable(), { blob: true });
     const upsample = decodeUpsampleTable(new Uint8Array(await blob.arrayBuffer()));
-    const reflectances = nodeReflectances(upsample);
+    nodeReflectances(upsample); // computed once here (kept with the table) so the first look is quick
     post({ type: 'ready', ms: performance.now() - t0 });
-    return { upsample, reflectances };
+    return { upsample };
   })();
   return tables;
 }
 
-function spectraOf(view: PhotoLookView, e: LookEdits): PhotoLookSpectra {
+function spectraOf(view: PhotoLookView, e: LookEdits): LookSpectra {
   const bare = view.light.edit && e.kelvin !== undefined ? resolveLight(editedLightSource(view.light.edit, e.kelvin)) : makeSpectrum(view.light.values);
   return {
     bareLight: bare,
@@ -55,11 +56,11 @@ const built: { key: string; lut: ExposureLut; tone: ToneCurveTable; plan?: LutPl
 const photos = new Map<string, { width: number; height: number; rgba: Uint8ClampedArray }>();
 
 async function onLook(m: Extract<ToWorker, { type: 'look' }>) {
-  const { upsample, reflectances } = await loadTables();
+  const { upsample } = await loadTables();
   const t0 = performance.now();
-  const look = photoLook(spectraOf(m.view, m.edits), upsample, reflectances);
-  const lut = buildPhotoLut(look.model, m.size);
-  const tone = look.model.tone;
+  const model = photoToneModel(composeLook(spectraOf(m.view, m.edits)), upsample);
+  const lut = buildPhotoLut(model, m.size);
+  const tone = model.tone;
   built.unshift({ key: m.key, lut, tone });
   built.length = Math.min(built.length, 24);
   for (const old of built.slice(2)) old.plan = old.zonePlan = undefined;

@@ -4,8 +4,20 @@
  */
 import { srgbDecode, srgbEncode } from '../../../../shared/tone/print';
 import { sampleExposureLut } from '../../../../shared/photo/exposure-lut';
-import { greyOfStops, zoneOfStops } from '../../../../shared/photo/tone-curve-table';
+import { greyOfStops, zoneOfStops } from '../../../../shared/look/tone-curve-table';
 import type { PreviewLut } from './preview-protocol';
+
+/** The sampled region's mean colour and where it lands through the look. */
+export interface SampleReading {
+  /** mean colour, sRGB-encoded 0..1 */
+  colour: [number, number, number];
+  stops: number;
+  zone: number;
+  /** output grey 0..1 */
+  grey: number;
+  /** in the original's pixels */
+  rect: [number, number, number, number];
+}
 
 export interface Rect {
   x: number;
@@ -43,4 +55,16 @@ export const toHex = (c: readonly number[]) => '#' + c.map((v) => Math.round(Mat
 export function toneOfColour(lut: PreviewLut, c: readonly number[]): { stops: number; zone: number; grey: number } {
   const stops = sampleExposureLut(lut, c[0], c[1], c[2]);
   return { stops: stops + lut.tone.offsetStops, zone: zoneOfStops(lut.tone, stops), grey: greyOfStops(lut.tone, stops) };
+}
+
+/**
+ * The reading of a rectangle of the preview `img` (its own pixels): mean colour, tone through `lut`, and the
+ * rectangle scaled to the original's pixels (`original` width × height; at least 1 px each way).
+ */
+export function sampleReading(img: ImageData, r: Rect, lut: PreviewLut, original: { width: number; height: number }): SampleReading {
+  const colour = meanColour(img, r);
+  const sx = original.width / img.width;
+  const sy = original.height / img.height;
+  const rect: SampleReading['rect'] = [Math.round(r.x * sx), Math.round(r.y * sy), Math.max(1, Math.round(r.width * sx)), Math.max(1, Math.round(r.height * sy))];
+  return { colour, ...toneOfColour(lut, colour), rect };
 }

@@ -11,6 +11,7 @@ import { zodFieldErrors } from '../../../lib/form-errors';
 import type { ProductionSummary } from '../api/types';
 import { useQueryClient } from '@tanstack/react-query';
 import { productionQueryOptions } from '../api/get-production';
+import { paths } from '../../../lib/paths';
 
 /** Owner-only: rename, describe or delete the production. */
 export function ProductionSettings({ production }: { production: ProductionSummary }) {
@@ -47,7 +48,7 @@ export function ProductionSettings({ production }: { production: ProductionSumma
             variant="danger"
             onClick={() => {
               if (confirm(`Delete "${production.name}" with all its looks, boards and photos? This cannot be undone.`))
-                del.mutate(production.id, { onSuccess: () => navigate('/') });
+                del.mutate(production.id, { onSuccess: () => navigate(paths.home()) });
             }}
           >
             Delete production

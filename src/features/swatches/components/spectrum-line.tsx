@@ -1,8 +1,10 @@
+import { GRID_END_NM, GRID_START_NM } from '../../../../shared/spectral/policy';
+
 /** A small SVG line of a spectrum (values 0..max over 380–780 nm), for previews. Not interactive. */
 export function SpectrumLine({ pairs, max, width = 220, height = 60, label }: { pairs: [number, number][]; max?: number; width?: number; height?: number; label: string }) {
   if (!pairs.length) return null;
   const top = max ?? Math.max(1e-9, ...pairs.map((p) => p[1]));
-  const x = (nm: number) => ((nm - 380) / 400) * width;
+  const x = (nm: number) => ((nm - GRID_START_NM) / (GRID_END_NM - GRID_START_NM)) * width;
   const y = (v: number) => height - Math.min(1, Math.max(0, v / top)) * (height - 2) - 1;
   const d = pairs.map((p, i) => `${i ? 'L' : 'M'}${x(p[0]).toFixed(1)},${y(p[1]).toFixed(1)}`).join(' ');
   return (

@@ -19,6 +19,12 @@ const MODES: { id: Mode; label: string }[] = [
   { id: 'measured', label: 'Measured file' },
 ];
 
+/** The three numbers of a colour given as RGB or L*a*b*: label, field name, starting value. */
+const TRIPLES: Record<'rgb' | 'lab', { inputMode: 'numeric' | 'decimal'; fields: [string, string, string][] }> = {
+  rgb: { inputMode: 'numeric', fields: [['R', 'r', '163'], ['G', 'g', '59'], ['B', 'b', '59']] },
+  lab: { inputMode: 'decimal', fields: [['L*', 'L', '40'], ['a*', 'a', '45'], ['b*', 'b', '25']] },
+};
+
 interface Props {
   myDepartment: Department;
   /** editors and owners may file a swatch under any department */
@@ -108,18 +114,11 @@ export function SwatchForm({ myDepartment, anyDepartment, pending, error, onSubm
           </label>
         </div>
       )}
-      {mode === 'rgb' && (
+      {(mode === 'rgb' || mode === 'lab') && (
         <div className="grid grid-cols-3 gap-2">
-          <TextField label="R" name="r" inputMode="numeric" defaultValue="163" />
-          <TextField label="G" name="g" inputMode="numeric" defaultValue="59" />
-          <TextField label="B" name="b" inputMode="numeric" defaultValue="59" />
-        </div>
-      )}
-      {mode === 'lab' && (
-        <div className="grid grid-cols-3 gap-2">
-          <TextField label="L*" name="L" inputMode="decimal" defaultValue="40" />
-          <TextField label="a*" name="a" inputMode="decimal" defaultValue="45" />
-          <TextField label="b*" name="b" inputMode="decimal" defaultValue="25" />
+          {TRIPLES[mode].fields.map(([label, name, start]) => (
+            <TextField key={`${mode}-${name}`} label={label} name={name} inputMode={TRIPLES[mode].inputMode} defaultValue={start} />
+          ))}
         </div>
       )}
       {mode !== 'measured' && <p className="text-xs text-ink-mute">A colour has no spectrum of its own: Grisaille estimates a smooth one that gives the same colour in daylight (D65), and marks the swatch “estimated spectrum”.</p>}

@@ -1,15 +1,17 @@
 import { In, type DataSource, type EntityManager } from 'typeorm';
+import { findInProduction } from '../../db/in-production';
 import { Board } from '../../db/entities/board.entity';
 import { Look } from '../../db/entities/look.entity';
 import { Swatch } from '../../db/entities/swatch.entity';
-import { InvalidError, NotFoundError } from '../../errors';
+import { InvalidError } from '../../errors';
 import type { BoardTones, LookTones } from '../../../shared/schemas/board';
 import type { LookDefinition } from '../../../shared/schemas/look';
 import { toneSettingsSchema } from '../../../shared/schemas/exposure';
 import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
 import { getUpsampleTable } from '../../services/upsample-table';
-import { loadCurves, refsOfLook, resolveLook } from '../looks/look-resolve';
-import { swatchSpectrum } from '../swatches/swatch-spectra';
+import { composeLook } from '../../../shared/look/compose-look';
+import { loadCurves, lookSpectra, refsOfLook, resolveLook } from './look-resolve';
+import { swatchSpectrum } from './swatch-spectra';
 import { lookTones, type ToneLook, type ToneSwatch } from './board-tones';
 
 /** A look to compute with: a saved one, or an unsaved definition from the bench. */
@@ -28,7 +30,9 @@ export async function prepareToneLooks(em: EntityManager, productionId: number, 
   const keyById = new Map(keys.map((k) => [k.id, k]));
   return looks.map((l) => {
     const key = l.tone.keySwatchId !== null ? keyById.get(l.tone.keySwatchId) : undefined;
-    return { id: l.id, name: l.name, resolved: resolveLook(l, curves), tone: l.tone, key: key ? swatchSpectrum(key, table).reflectance : null };
+    const resolved = resolveLook(l, curves);
+    const spectra = lookSpectra(resolved, l.tone, key ? swatchSpectrum(key, table).reflectance : null);
+    return { id: l.id, name: l.name, resolved, composed: composeLook(spectra, resolved) };
   });
 }
 
@@ -46,8 +50,7 @@ export class ToneService {
 
   async boardTones(productionId: number, boardId: number, q: { looks?: number[]; mergeStops?: number; mergeDeltaE?: number }): Promise<BoardTones> {
     const em = this.ds.manager;
-    const board = await em.findOne(Board, { where: { id: boardId, production: { id: productionId } }, relations: { swatches: true } });
-    if (!board) throw new NotFoundError('Board');
+    const board = await findInProduction(em, Board, productionId, boardId, 'Board', { swatches: true });
     const lookIds = q.looks ?? board.lookIds;
     const rows = lookIds.length ? await em.find(Look, { where: { id: In(lookIds), production: { id: productionId } } }) : [];
     const byId = new Map(rows.map((l) => [l.id, l]));
@@ -67,8 +70,7 @@ export class ToneService {
   /** One swatch through every look of the production (merges are not computed for a single swatch). */
   async swatchTones(productionId: number, swatchId: number): Promise<{ swatchId: number; looks: LookTones[] }> {
     const em = this.ds.manager;
-    const s = await em.findOne(Swatch, { where: { id: swatchId, production: { id: productionId } } });
-    if (!s) throw new NotFoundError('Swatch');
+    const s = await findInProduction(em, Swatch, productionId, swatchId, 'Swatch');
     const looks = (await em.find(Look, { where: { production: { id: productionId } }, order: { id: 'ASC' } })).map(lookDefinition);
     const table = await this.table();
     const toneLooks = await prepareToneLooks(em, productionId, looks, table);

@@ -1,5 +1,5 @@
-import type { SwatchTone } from '../../../../shared/schemas/board';
-import { greyCss, hexLightness, inkOn, signedStops } from '../lib/format';
+import type { SwatchTone } from '../../../shared/schemas/board';
+import { greyCss, hexLightness, inkOn, signedStops } from '../../lib/tone-format';
 
 interface Props {
   name: string;

@@ -7,15 +7,15 @@
 import { In, type EntityManager } from 'typeorm';
 import { Curve } from '../../db/entities/curve.entity';
 import { InvalidError } from '../../errors';
-import { resolveFilter, resolveLight, resolveMedium, prepareStack, filterFactor, type Stack, type FilterFactor } from '../../../shared/spectral/compute';
-import { lightThroughGel } from '../../../shared/spectral/lights';
+import { resolveFilter, resolveLight, resolveMedium, type Stack, type FilterFactor } from '../../../shared/spectral/compute';
+import { lookLightPath, type LookSpectra } from '../../../shared/look/compose-look';
+import { TONE_MEDIUM_IDS } from '../../../shared/tone/media-tone';
 import { SpectralInputError } from '../../../shared/spectral/errors';
 import { makeSpectrum, type Spectrum } from '../../../shared/spectral/spectrum';
-import { GRID_NM_LIST } from '../../../shared/spectral/grid';
 import { libraryFilter, libraryLight, libraryMedium } from '../../../shared/spectral/library';
 import type { FilterRef, LightRef, MediumRef, CurveKind } from '../../../shared/schemas/curve';
 import type { FilterPlace, LookDefinition } from '../../../shared/schemas/look';
-import type { FilterSource, LightSource, MediumSource, StackSource } from '../../../shared/schemas/simulate';
+import type { FilterSource, LightSource, MediumSource } from '../../../shared/schemas/simulate';
 
 export interface ResolvedCurve {
   spectrum: Spectrum;
@@ -36,8 +36,10 @@ export interface ResolvedLook {
   light: Spectrum;
   filters: (ResolvedCurve & { on: FilterPlace })[];
   medium: ResolvedCurve;
-  /** stack for the swatches: gelled light, lens filters, medium */
-  stack: Stack;
+  /** the tone-defaults id of the medium (shared/tone/media-tone.ts) */
+  mediumToneId: string;
+  /** the light path for the swatches: gelled light, lens filters, medium (built once, shared/look/compose-look.ts) */
+  path: Stack;
   /** filter factor of every filter (gels and lens) against the bare lamp, on the medium */
   factor: FilterFactor;
 }
@@ -130,29 +132,32 @@ export function resolveMediumRef(r: MediumRef, curves: Map<number, Curve>, field
   return { spectrum: engine(field, () => resolveMedium(s)), label: mediumLabel(s), source: sourceNote('medium', s), libraryId: s.id ?? null, curveId: null };
 }
 
-/** A look definition → spectra and the prepared stack. Throws InvalidError naming the field. */
+/** The tone-defaults id of a medium: built-in media by their id, production curves as `curve.<id>`. */
+export function toneMediumId(medium: Pick<ResolvedCurve, 'libraryId' | 'curveId'>): string {
+  const id = medium.libraryId;
+  if (id === null) return medium.curveId !== null ? `curve.${medium.curveId}` : 'custom';
+  if (TONE_MEDIUM_IDS.includes(id)) return id;
+  if (TONE_MEDIUM_IDS.includes(`medium.${id}`)) return `medium.${id}`;
+  return id;
+}
+
+/** A look definition → spectra and its light path (built once). Throws InvalidError naming the field. */
 export function resolveLook(def: LookDefinition, curves: Map<number, Curve>): ResolvedLook {
   const bareLight = resolveLightRef(def.light, curves, 'light');
   const filters = def.filters.map((f, i) => ({ ...resolveFilterRef(f.filter, curves, `filters.${i}.filter`), on: f.on }));
   const medium = resolveMediumRef(def.medium, curves, 'medium');
-  const gels = filters.filter((f) => f.on === 'light').map((f) => f.spectrum);
-  const lens = filters.filter((f) => f.on === 'lens').map((f) => f.spectrum);
-  const light = gels.length ? engine('filters', () => lightThroughGel(bareLight.spectrum, ...gels)) : bareLight.spectrum;
-  const all = filters.map((f) => f.spectrum);
-  const factor = engine('medium', () => filterFactor(bareLight.spectrum, all, medium.spectrum));
-  const stack = engine('medium', () => prepareStack({ light, filters: lens, medium: medium.spectrum }));
-  return { bareLight, light, filters, medium, stack, factor };
+  const { light, path, factor } = engine('medium', () => lookLightPath({ bareLight: bareLight.spectrum, filters: filters.map((f) => ({ spectrum: f.spectrum, on: f.on })), medium: medium.spectrum }));
+  return { bareLight, light, filters, medium, mediumToneId: toneMediumId(medium), path, factor };
 }
 
-/**
- * A look as the engine's own stack source (inline samples for production curves), for features that
- * hand a look to the engine directly (e.g. a photo's tone table). Gels are folded into the light.
- */
-export function lookStackSource(r: ResolvedLook): StackSource {
-  const pairs = (s: Spectrum) => Array.from(s.values, (v, i) => [GRID_NM_LIST[i], v] as [number, number]);
+/** The spectra the shared composition takes, from a resolved look, its tone settings and key. */
+export function lookSpectra(r: ResolvedLook, tone: LookSpectra['tone'], key: Spectrum | null): LookSpectra {
   return {
-    light: { samples: pairs(r.light) },
-    filters: r.filters.filter((f) => f.on === 'lens').map((f) => ({ samples: pairs(f.spectrum) })),
-    medium: { samples: pairs(r.medium.spectrum) },
+    bareLight: r.bareLight.spectrum,
+    filters: r.filters.map((f) => ({ spectrum: f.spectrum, on: f.on })),
+    medium: r.medium.spectrum,
+    mediumToneId: r.mediumToneId,
+    tone,
+    key,
   };
 }

@@ -57,3 +57,32 @@ export function greyOfStops(t: ToneCurveTable, stops: number): number {
 export function zoneOfStops(t: ToneCurveTable, stops: number): number {
   return 5 + stops + t.offsetStops;
 }
+
+/** Fixed-point steps per stop in output codes (a tone 1/2048 stop apart moves the grey < 0.02/255). */
+export const STOPS_Q = 2048;
+/** Stops (before key placement) of fixed-point 0. */
+export const MIN_STOPS = TONE_TABLE_STOPS[0];
+/** Largest fixed-point value (the top of the tone table). */
+export const MAX_Q = (TONE_TABLE_STOPS[1] - TONE_TABLE_STOPS[0]) * STOPS_Q;
+
+/** Bits per output grey code. */
+export type OutputBits = 8 | 16;
+
+/** Fixed-point stops → output code (0..255 or 0..65535), MAX_Q + 1 entries. */
+export function outputCodes(tone: ToneCurveTable, bits: OutputBits): Uint8Array | Uint16Array {
+  const n = MAX_Q + 1;
+  const top = bits === 8 ? 255 : 65535;
+  const out = bits === 8 ? new Uint8Array(n) : new Uint16Array(n);
+  for (let i = 0; i < n; i++) out[i] = Math.round(greyOfStops(tone, MIN_STOPS + i / STOPS_Q) * top);
+  return out;
+}
+
+/**
+ * The output code of a tone `stopsBeforeKey` (stops from middle grey before key placement) through
+ * `codes` (outputCodes): the one rounding every grey in the product goes through, swatches and photo
+ * pixels alike (shared/photo/exact-lut.ts writes the same two lines out for its worker).
+ */
+export function codeOfStops(codes: Uint8Array | Uint16Array, stopsBeforeKey: number): number {
+  const q = ((stopsBeforeKey - MIN_STOPS) * STOPS_Q + 0.5) | 0;
+  return codes[q < 0 ? 0 : q > MAX_Q ? MAX_Q : q];
+}

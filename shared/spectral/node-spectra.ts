@@ -1,0 +1,83 @@
+/**
+ * The estimate's node spectra: every node of the upsampling table (upsample-table.ts) as a reflectance on
+ * the working grid, computed once per table and shared by everything that estimates colours — single
+ * swatches and photo pixels alike. A colour's estimated reflectance is the trilinear blend of its table
+ * cell's eight corner spectra; that blend reproduces the colour under D65 exactly (the node colours are
+ * trilinear in the cell), and since the medium exposure is linear in the reflectance, a photo needs only
+ * one dot product per node and look (`nodeExposures`) and then the same blend of node exposures.
+ * Swatches and pixels therefore get the same number for the same colour.
+ */
+import { GRID_SIZE } from './policy';
+import { makeSpectrum, type Spectrum } from './spectrum';
+import { sigmoidInto } from './upsample';
+import { locateCell, type TableCell, type UpsampleTable } from './upsample-table';
+
+const memo = new WeakMap<UpsampleTable, Float32Array>();
+
+/**
+ * Reflectance 0..1 of every node of `table` on the working grid (node k's 81 values from k·81), computed
+ * once per table and kept while the table lives. Float32 (32 MB for a 3 × 32³ table).
+ */
+export function nodeReflectances(table: UpsampleTable): Float32Array {
+  let out = memo.get(table);
+  if (out) return out;
+  const cf = table.coefficients;
+  const n = cf.length / 3;
+  out = new Float32Array(n * GRID_SIZE);
+  const row = new Float64Array(GRID_SIZE);
+  for (let k = 0; k < n; k++) {
+    sigmoidInto(cf[3 * k], cf[3 * k + 1], cf[3 * k + 2], row);
+    out.set(row, k * GRID_SIZE);
+  }
+  memo.set(table, out);
+  return out;
+}
+
+/**
+ * Σ wᵢ·ρₖ(λᵢ) for every node k: with `weights` a light path's medium weights this is the medium exposure m
+ * of every node (linear, relative to white, 0.18 = middle grey); with eye weights, X, Y or Z.
+ */
+export function nodeExposures(reflectances: Float32Array, weights: Float64Array): Float64Array {
+  const n = reflectances.length / GRID_SIZE;
+  const out = new Float64Array(n);
+  for (let k = 0, o = 0; k < n; k++) {
+    let m = 0;
+    for (let i = 0; i < GRID_SIZE; i++, o++) m += weights[i] * reflectances[o];
+    out[k] = m;
+  }
+  return out;
+}
+
+/** The eight corner nodes of a cell and their trilinear weights (zero weights included). */
+export function cellCorners(table: UpsampleTable, cell: TableCell): { nodes: number[]; weights: number[] } {
+  const R = table.resolution;
+  const nodes: number[] = [];
+  const weights: number[] = [];
+  for (let dz = 0; dz < 2; dz++) {
+    for (let dy = 0; dy < 2; dy++) {
+      for (let dx = 0; dx < 2; dx++) {
+        nodes.push(cell.node + dx + dy * R + dz * R * R);
+        weights.push((dx ? cell.fx : 1 - cell.fx) * (dy ? cell.fy : 1 - cell.fy) * (dz ? cell.fz : 1 - cell.fz));
+      }
+    }
+  }
+  return { nodes, weights };
+}
+
+/**
+ * The estimated reflectance (0..1 on the grid) of linear sRGB `rgb` (each 0..1, clamped): the trilinear
+ * blend of its cell's corner node spectra. Reproduces the colour under D65.
+ */
+export function blendedReflectance(table: UpsampleTable, rgb: readonly [number, number, number]): Spectrum {
+  const refl = nodeReflectances(table);
+  const c = rgb.map((v) => Math.min(1, Math.max(0, v)));
+  const { nodes, weights } = cellCorners(table, locateCell(table, c[0], c[1], c[2]));
+  const out = new Float64Array(GRID_SIZE);
+  for (let j = 0; j < 8; j++) {
+    const w = weights[j];
+    if (w === 0) continue;
+    const o = nodes[j] * GRID_SIZE;
+    for (let i = 0; i < GRID_SIZE; i++) out[i] += w * refl[o + i];
+  }
+  return makeSpectrum(out);
+}

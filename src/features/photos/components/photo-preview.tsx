@@ -1,0 +1,69 @@
+import { useState } from 'react';
+import { ErrorMessage, Spinner } from '../../../components/ui/alert';
+import { Segmented } from '../../../components/ui/segmented';
+import type { LookView } from '../../../../shared/schemas/look';
+import type { PhotoView } from '../../../../shared/schemas/photo';
+import type { LoadedPhoto } from '../hooks/use-loaded-photo';
+import type { TimedLut } from '../hooks/use-preview-lut';
+import type { PreviewMode } from '../lib/gl-preview';
+import type { Rect } from '../lib/region';
+import { CompareLooks, useCompareSelection } from './compare-looks';
+import { LookCanvas, type PreviewTiming, type Renderer } from './look-canvas';
+import { SamplerOverlay } from './sampler-overlay';
+import { WipeOverlay, WipeSlider } from './wipe';
+import { ZoneLegend } from './zone-legend';
+
+export type PhotoViewMode = 'look' | 'wipe' | 'compare';
+
+/** The photo through the look: alone (with the sampler), wiped against the colour original, or compared across looks. */
+export function PhotoPreview({ pid, photo, look, looks, loaded, timed, error, loading, renderer, view, onView, rect, onRect }: {
+  pid: number;
+  photo: PhotoView;
+  look: LookView | undefined;
+  looks: LookView[];
+  loaded: LoadedPhoto | null;
+  timed: TimedLut | null;
+  error: unknown;
+  loading: boolean;
+  renderer: Renderer;
+  view: PhotoViewMode;
+  onView: (v: PhotoViewMode) => void;
+  rect: Rect | null;
+  onRect: (r: Rect) => void;
+}) {
+  const [mode, setMode] = useState<PreviewMode>('look');
+  const [wipe, setWipe] = useState(0.5);
+  const [compare, setCompare] = useCompareSelection(looks);
+  const [timing, setTiming] = useState<PreviewTiming | null>(null);
+  return (
+    <>
+      <div className="mb-3 flex flex-wrap items-center justify-between gap-2">
+        <Segmented label="View" value={view} onChange={onView} options={[['look', 'Look'], ['wipe', 'Wipe'], ['compare', 'Compare']]} />
+        <Segmented label="Show" value={mode} onChange={setMode} options={[['look', 'Grey'], ['zones', 'Zones']]} />
+      </div>
+      <ErrorMessage error={error} />
+      {loading && <Spinner label="Loading the preview…" />}
+      {loaded && view !== 'compare' && (
+        <LookCanvas
+          loaded={loaded}
+          timed={timed}
+          options={{ mode, wipe: view === 'wipe' ? wipe : null }}
+          renderer={renderer}
+          label={`${photo.name} through ${look?.name ?? 'a look'}${view === 'wipe' ? ', wiped against the colour original' : ''}`}
+          onTiming={setTiming}
+        >
+          {view === 'look' && <SamplerOverlay width={loaded.image.width} height={loaded.image.height} rect={rect} onRect={onRect} />}
+          {view === 'wipe' && <WipeOverlay wipe={wipe} onWipe={setWipe} lookName={look?.name} />}
+        </LookCanvas>
+      )}
+      {loaded && view === 'wipe' && <WipeSlider wipe={wipe} onWipe={setWipe} />}
+      {loaded && view === 'compare' && <CompareLooks pid={pid} looks={looks} compare={compare} onCompare={setCompare} loaded={loaded} mode={mode} renderer={renderer} />}
+      {mode === 'zones' && <div className="mt-3 max-w-xl"><ZoneLegend /></div>}
+      {timing && view !== 'compare' && (
+        <p className="mt-2 text-xs text-ink-mute tabular" data-testid="preview-timing">
+          Preview {timing.width} × {timing.height} px, {renderer === 'gl' ? 'WebGL2' : 'worker (no WebGL2)'}: {Math.round(timing.total)} ms from the change (table {Math.round(timing.table)} ms).
+        </p>
+      )}
+    </>
+  );
+}

@@ -1,0 +1,98 @@
+/**
+ * Every path the client knows, in one place: the pages (`paths`, for links, navigations and the router's
+ * patterns) and the server's endpoints (`apiPaths`, for the API client). Ids may be numbers or, for the
+ * router's patterns, `:param` strings.
+ */
+type Id = number | string;
+
+const query = (q: URLSearchParams) => (q.size ? `?${q}` : '');
+
+/** Client routes. */
+export const paths = {
+  home: () => '/',
+  signIn: (next?: string) => (next ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'),
+  setup: () => '/setup',
+  resetRequest: () => '/reset',
+  resetConfirm: (token: string) => `/reset/${token}`,
+  invitation: (token: string) => `/invitation/${token}`,
+  outbox: () => '/admin/outbox',
+  production: (pid: Id) => {
+    const base = `/p/${pid}`;
+    return {
+      root: () => base,
+      team: () => `${base}/team`,
+      looks: () => `${base}/looks`,
+      compare: (ids?: readonly number[]) => `${base}/looks/compare${ids ? `?ids=${ids.join(',')}` : ''}`,
+      sheet: (lookId: Id) => `${base}/looks/${lookId}/sheet`,
+      /** the bench; `'new'` opens an empty look, no id lets the page pick the first look */
+      bench: (lookId?: Id) => (lookId === undefined ? `${base}/bench` : `${base}/bench/${lookId}`),
+      library: () => `${base}/library`,
+      swatches: () => `${base}/swatches`,
+      boards: () => `${base}/boards`,
+      board: (id: Id) => `${base}/boards/${id}`,
+      photos: () => `${base}/photos`,
+    };
+  },
+};
+
+/** A production's pages, as `paths.production(pid)` answers them. */
+export type ProductionPaths = ReturnType<typeof paths.production>;
+
+/** Server endpoints. */
+export const apiPaths = {
+  auth: {
+    csrf: () => '/api/auth/csrf',
+    me: () => '/api/auth/me',
+    signIn: () => '/api/auth/sign-in',
+    signOut: () => '/api/auth/sign-out',
+    setup: () => '/api/auth/setup',
+    resetRequest: () => '/api/auth/reset/request',
+    resetConfirm: () => '/api/auth/reset/confirm',
+  },
+  invitation: (token: string) => {
+    const base = `/api/invitations/${encodeURIComponent(token)}`;
+    return { root: () => base, accept: () => `${base}/accept` };
+  },
+  library: () => '/api/library',
+  upsampleTable: () => '/api/library/upsample-table',
+  outbox: () => '/api/admin/outbox',
+  productions: () => '/api/productions',
+  production: (pid: number) => {
+    const base = `/api/productions/${pid}`;
+    return {
+      root: () => base,
+      members: () => `${base}/members`,
+      member: (id: number) => `${base}/members/${id}`,
+      invitations: () => `${base}/invitations`,
+      invitation: (id: number) => `${base}/invitations/${id}`,
+      looks: () => `${base}/looks`,
+      analyseLook: () => `${base}/looks/analyse`,
+      look: (id: number) => ({
+        root: () => `${base}/looks/${id}`,
+        duplicate: () => `${base}/looks/${id}/duplicate`,
+        analysis: () => `${base}/looks/${id}/analysis`,
+        sheet: () => `${base}/looks/${id}/sheet`,
+        sheetPdf: () => `${base}/looks/${id}/sheet.pdf`,
+      }),
+      curves: () => `${base}/curves`,
+      curve: (id: number) => `${base}/curves/${id}`,
+      boards: () => `${base}/boards`,
+      board: (id: number) => ({
+        root: () => `${base}/boards/${id}`,
+        tones: (q: URLSearchParams = new URLSearchParams()) => `${base}/boards/${id}/tones${query(q)}`,
+      }),
+      swatches: () => `${base}/swatches`,
+      swatch: (id: number) => ({
+        root: () => `${base}/swatches/${id}`,
+        tones: () => `${base}/swatches/${id}/tones`,
+      }),
+      photos: () => `${base}/photos`,
+      photo: (id: number) => ({
+        root: () => `${base}/photos/${id}`,
+        renders: () => `${base}/photos/${id}/renders`,
+        render: (key: string) => `${base}/photos/${id}/renders/${key}`,
+      }),
+      photoLooks: () => `${base}/photo-looks`,
+    };
+  },
+};
