@@ -2,10 +2,10 @@
  * Spectral engine figures (medians): the 33³ photo table of a look as the live preview builds it (the
  * look composed, the exposure of every node of the estimate's table, then 33³ nodes of stops), and
  * 1,000 colour swatches through
- * one stack (resolve: table lookup + Gauss–Newton refinement; then XYZ, L*a*b*, tones). Also the
+ * one light path (resolve: table lookup + Gauss–Newton refinement; then XYZ, L*a*b*, tones). Also the
  * one-off build of the upsampling table, which the server does once and caches.
  */
-import { resolveFilter, resolveLight, resolveMedium, resolveStack, resolveSwatch, simulateSwatches } from '../shared/spectral/compute';
+import { resolveFilter, resolveLight, resolveMedium, resolveLightPath, resolveSwatch, simulateSwatches } from '../shared/spectral/compute';
 import { composeLook } from '../shared/look/compose-look';
 import { buildPhotoLut, photoToneModel } from '../shared/photo/look-photo-model';
 import { PREVIEW_LUT_SIZE } from '../shared/photo/exposure-lut';
@@ -18,7 +18,7 @@ export default async function run(record: (name: string, value: number, unit: st
   let table = buildUpsampleTable();
   record('upsample_table_build_ms', await medianMs(() => (table = buildUpsampleTable()), 3), 'ms');
 
-  const stack = resolveStack({ light: { id: 'tungsten-3200' }, filters: [{ id: 'cyan-530' }], medium: { id: 'panchromatic' } });
+  const lightPath = resolveLightPath({ light: { id: 'tungsten-3200' }, filters: [{ id: 'cyan-530' }], medium: { id: 'panchromatic' } });
   const spectra = {
     bareLight: resolveLight({ id: 'tungsten-3200' }),
     filters: [{ spectrum: resolveFilter({ id: 'cyan-530' }), on: 'lens' as const }],
@@ -35,7 +35,7 @@ export default async function run(record: (name: string, value: number, unit: st
   const sources = Array.from({ length: 1000 }, (_, i) => ({ name: `swatch ${i}`, srgb: hex() }));
   record(
     'swatches_1000_ms',
-    await medianMs(() => simulateSwatches(stack, sources.map((s) => resolveSwatch(s, table))), 9),
+    await medianMs(() => simulateSwatches(lightPath, sources.map((s) => resolveSwatch(s, table))), 9),
     'ms',
   );
 }

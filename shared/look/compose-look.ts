@@ -3,7 +3,7 @@
  * the browser's live preview) and the engine's endpoints all turn a look into tones through here.
  *
  *   light path   the lamp through the gels (filters on the light, which the eye sees too), the lens
- *                filters, the medium (`prepareStack`); the filter factor counts every filter, gels and
+ *                filters, the medium (`prepareLightPath`); the filter factor counts every filter, gels and
  *                lens, against the bare lamp;
  *   key          a key swatch is placed on its zone (`keyOffsetStops`), else middle grey on zone V;
  *   tone         the medium's tone pipeline (characteristic curve, development, print or display) with
@@ -11,7 +11,7 @@
  *   grey         every output grey goes through the same fixed-point rounding (`codeOfStops`), so a
  *                swatch on a board and a pixel of the same colour in a photo get the same code.
  */
-import { filterFactor, prepareStack, simulateSwatches, type FilterFactor, type Stack } from '../spectral/compute';
+import { filterFactor, prepareLightPath, simulateSwatches, type FilterFactor, type LightPath } from '../spectral/compute';
 import { lightThroughGel } from '../spectral/lights';
 import type { Spectrum } from '../spectral/spectrum';
 import { buildTonePipeline, type TonePipeline, type ToneSettingsLike } from '../tone/tone-pipeline';
@@ -44,7 +44,7 @@ export interface ComposedLook {
   /** the light the scene is lit by: the lamp through the gels (peak 1) */
   readonly light: Spectrum;
   /** gelled light, lens filters, medium, with the precomputed weights */
-  readonly path: Stack;
+  readonly path: LightPath;
   /** every filter (gels and lens) against the bare lamp, on the medium */
   readonly factor: FilterFactor;
   /** key placement, stops added to every tone (0 when middle grey is placed on zone V) */
@@ -57,16 +57,16 @@ export interface ComposedLook {
 }
 
 /** The light path of a look's spectra: the light through its gels, the lens filters, the medium; and the factor of all filters. */
-export function lookLightPath(s: Pick<LookSpectra, 'bareLight' | 'filters' | 'medium'>): { light: Spectrum; path: Stack; factor: FilterFactor } {
+export function lookLightPath(s: Pick<LookSpectra, 'bareLight' | 'filters' | 'medium'>): { light: Spectrum; path: LightPath; factor: FilterFactor } {
   const gels = s.filters.filter((f) => f.on === 'light').map((f) => f.spectrum);
   const lens = s.filters.filter((f) => f.on === 'lens').map((f) => f.spectrum);
   const light = gels.length ? lightThroughGel(s.bareLight, ...gels) : s.bareLight;
   const factor = filterFactor(s.bareLight, s.filters.map((f) => f.spectrum), s.medium);
-  return { light, path: prepareStack({ light, filters: lens, medium: s.medium }), factor };
+  return { light, path: prepareLightPath({ light, filters: lens, medium: s.medium }), factor };
 }
 
 /** Medium stops (from middle grey, before key placement) of a reflectance through a light path. */
-export function stopsThrough(path: Stack, reflectance: Spectrum): number {
+export function stopsThrough(path: LightPath, reflectance: Spectrum): number {
   return simulateSwatches(path, [{ name: 'key', reflectance, estimated: false }]).swatches[0].stops;
 }
 

@@ -6,7 +6,7 @@ import { filterRefSchema, lightRefSchema, mediumRefSchema, type LightRef, type M
 export const FILTER_PLACES = ['lens', 'light'] as const;
 export type FilterPlace = (typeof FILTER_PLACES)[number];
 
-/** At most this many filters in a look's stack. */
+/** At most this many filters in a look's lightPath. */
 export const MAX_LOOK_FILTERS = 8;
 /** Compare at most this many looks side by side. */
 export const MAX_COMPARE_LOOKS = 4;

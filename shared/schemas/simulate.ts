@@ -17,12 +17,12 @@ export { filterSourceSchema, lightSourceSchema, mediumSourceSchema, swatchSource
 export type { FilterSource, LightSource, MediumSource, SwatchSource } from '../spectral/sources';
 
 /** The light path without surfaces: what a look stores. */
-export const stackSourceSchema = z.strictObject({
+export const lightPathSourceSchema = z.strictObject({
   light: lightSourceSchema,
   filters: z.array(filterSourceSchema).max(MAX_FILTERS, `at most ${MAX_FILTERS} filters`).default([]),
   medium: mediumSourceSchema,
 });
-export type StackSource = z.input<typeof stackSourceSchema>;
+export type LightPathSource = z.input<typeof lightPathSourceSchema>;
 
 /** Body of POST /api/simulate. */
 export const simulateRequestSchema = z.strictObject({

@@ -2,11 +2,11 @@
  * The computation of DESIGN.md §3, and the engine's entry points for other features.
  *
  *   resolveLight(src) / resolveFilter(src) / resolveMedium(src)   sources (sources.ts) → spectra
- *   resolveStack({ light, filters, medium })                       sources → a prepared Stack
- *   prepareStack({ light, filters, medium })                       spectra → a prepared Stack
+ *   resolveLightPath({ light, filters, medium })                       sources → a prepared LightPath
+ *   prepareLightPath({ light, filters, medium })                       spectra → a prepared LightPath
  *   resolveSwatch(src, table)                                      swatch source → { name, reflectance, estimated }
  *   filterFactor(light, filters, medium)                           → { factor, stops, opaque }
- *   simulateSwatches(stack, swatches)                              → { filterFactor, filterStops, opaque, white, swatches[] }
+ *   simulateSwatches(lightPath, swatches)                              → { filterFactor, filterStops, opaque, white, swatches[] }
  *   simulate(request, table)                                       POST /api/simulate in one call
  *   reflectanceFromSrgb(hexOrRgb, table)                           (estimate.ts) estimated reflectance of a colour
  *
@@ -15,7 +15,7 @@
  *     the lit scene, not the lens filters);
  *   filter factor F = ∫ E·S / ∫ E·T·S, filter stops = log2 F; opaque when stops > 10;
  *   exposure m = ∫ ρ·E·T·S / ∫ E·T·S (opened up by F; a neutral grey reads the same through any filter);
- *   integrals by the rule of policy.ts, reduced to 81 weights per stack (integrate.ts);
+ *   integrals by the rule of policy.ts, reduced to 81 weights per light path (integrate.ts);
  *   stops = log2(m / 0.18); eyeStops = log2((Y/100) / 0.18); shift = stops − eyeStops;
  *   zone = 5 + stops, clamped to 0..10 (continuous; round it for the Roman numeral).
  *   There is no key placement here: stops and zone are as metered, before any key is placed
@@ -160,7 +160,7 @@ export function resolveSwatch(src: SwatchSource, table: UpsampleTable | null): R
   throw new SpectralInputError('a swatch needs one of reflectance, srgb, rgb, lab');
 }
 
-/** A filter factor: multiplier F, stops log2 F, and whether the stack is effectively opaque. */
+/** A filter factor: multiplier F, stops log2 F, and whether the light path is effectively opaque. */
 export interface FilterFactor {
   /** F = ∫ E·S / ∫ E·T·S (≥ 1 for passive filters), capped at 2^40 */
   factor: number;
@@ -202,7 +202,7 @@ export function filterFactor(light: Spectrum, filters: readonly Spectrum[], medi
 }
 
 /** A light path prepared for many swatches: spectra plus the precomputed weights. */
-export interface Stack {
+export interface LightPath {
   readonly light: Spectrum;
   readonly filters: readonly Spectrum[];
   /** ΠT, 0..1 */
@@ -212,13 +212,13 @@ export interface Stack {
   readonly white: Xyz;
   /** k·E·x̄, k·E·ȳ, k·E·z̄ (XYZ = Σ ρ·w) */
   readonly eyeWeights: { readonly x: Float64Array; readonly y: Float64Array; readonly z: Float64Array };
-  /** integration weights of E·T·S over their sum (m = Σ ρ·w); all zero when the stack is fully opaque */
+  /** integration weights of E·T·S over their sum (m = Σ ρ·w); all zero when the light path is fully opaque */
   readonly mediumWeights: Float64Array;
   readonly factor: FilterFactor;
 }
 
 /** Prepares grid spectra (light peak-normalised, filters 0..1, medium energy basis) for simulation. */
-export function prepareStack(spectra: { light: Spectrum; filters?: readonly Spectrum[]; medium: Spectrum }): Stack {
+export function prepareLightPath(spectra: { light: Spectrum; filters?: readonly Spectrum[]; medium: Spectrum }): LightPath {
   const light = onGrid(spectra.light);
   const filters = (spectra.filters ?? []).map(onGrid);
   const medium = onGrid(spectra.medium);
@@ -232,12 +232,12 @@ export function prepareStack(spectra: { light: Spectrum; filters?: readonly Spec
   return Object.freeze({ light, filters, transmission, medium, white, eyeWeights, mediumWeights, factor });
 }
 
-/** Validated light, filters and medium sources (sources.ts) → a prepared Stack. Errors carry the request path. */
-export function resolveStack(input: { light: LightSource; filters?: readonly FilterSource[]; medium: MediumSource }): Stack {
+/** Validated light, filters and medium sources (sources.ts) → a prepared LightPath. Errors carry the request path. */
+export function resolveLightPath(input: { light: LightSource; filters?: readonly FilterSource[]; medium: MediumSource }): LightPath {
   const light = within(['light'], () => resolveLight(input.light));
   const filters = (input.filters ?? []).map((f, i) => within(['filters', i], () => resolveFilter(f)));
   const medium = within(['medium'], () => resolveMedium(input.medium));
-  return prepareStack({ light, filters, medium });
+  return prepareLightPath({ light, filters, medium });
 }
 
 const FLOOR = MIDDLE_GREY * 2 ** FLOOR_STOPS;
@@ -250,12 +250,12 @@ export function stopsFromGrey(relative: number): number {
 }
 
 /**
- * Every swatch through `stack`: XYZ and L*a*b* to the eye, exposure m, stops, eye stops, shift and
+ * Every swatch through `lightPath`: XYZ and L*a*b* to the eye, exposure m, stops, eye stops, shift and
  * zone (definitions in the header). Cost per swatch: four 81-sample dot products.
  */
-export function simulateSwatches(stack: Stack, swatches: readonly ResolvedSwatch[]): SimulationResult {
-  const { x: wx, y: wy, z: wz } = stack.eyeWeights;
-  const wm = stack.mediumWeights;
+export function simulateSwatches(lightPath: LightPath, swatches: readonly ResolvedSwatch[]): SimulationResult {
+  const { x: wx, y: wy, z: wz } = lightPath.eyeWeights;
+  const wm = lightPath.mediumWeights;
   const out: SwatchResult[] = swatches.map((s) => {
     const r = onGrid(s.reflectance).values;
     let X = 0;
@@ -275,7 +275,7 @@ export function simulateSwatches(stack: Stack, swatches: readonly ResolvedSwatch
     return {
       name: s.name,
       xyz,
-      lab: xyzToLab(xyz, stack.white),
+      lab: xyzToLab(xyz, lightPath.white),
       exposure: m,
       stops,
       eyeStops,
@@ -284,12 +284,12 @@ export function simulateSwatches(stack: Stack, swatches: readonly ResolvedSwatch
       estimated: s.estimated,
     };
   });
-  return { filterFactor: stack.factor.factor, filterStops: stack.factor.stops, opaque: stack.factor.opaque, white: stack.white, swatches: out };
+  return { filterFactor: lightPath.factor.factor, filterStops: lightPath.factor.stops, opaque: lightPath.factor.opaque, white: lightPath.white, swatches: out };
 }
 
 /** POST /api/simulate in one call: a validated request and the upsampling table → the answer. */
 export function simulate(request: SimulationInput, table: UpsampleTable | null): SimulationResult {
-  const stack = resolveStack(request);
+  const lightPath = resolveLightPath(request);
   const swatches = request.swatches.map((s, i) => within(['swatches', i], () => resolveSwatch(s, table)));
-  return simulateSwatches(stack, swatches);
+  return simulateSwatches(lightPath, swatches);
 }

@@ -23,5 +23,5 @@ export const MIDDLE_GREY = 0.18;
 export const MAX_PAIRS = 4000;
 /** At most this many swatches in one simulate request. */
 export const MAX_SWATCHES = 2000;
-/** At most this many filters in one stack. */
+/** At most this many filters in one lightPath. */
 export const MAX_FILTERS = 12;

@@ -8,7 +8,7 @@ import { getUpsampleTable } from '../../server/services/upsample-table';
 import { PARALLEL_MIN_PIXELS, passPool } from '../../server/services/photo-pass-pool';
 import { nodeExposures, nodeReflectances } from '../../shared/spectral/node-spectra';
 import { interpolateAtCell, locateCell } from '../../shared/spectral/upsample-table';
-import { prepareStack, resolveFilter, resolveLight, resolveMedium } from '../../shared/spectral/compute';
+import { prepareLightPath, resolveFilter, resolveLight, resolveMedium } from '../../shared/spectral/compute';
 import { buildTonePipeline } from '../../shared/tone/tone-pipeline';
 import { srgbDecode } from '../../shared/tone/print';
 import { random } from '../unit/spectral/fixtures';
@@ -121,8 +121,8 @@ describe('the table against the engine’s per-pixel computation', () => {
   /** The engine's grey of one sRGB pixel (encoded 0..1), computed directly: no table of ours. */
   async function engineGrey() {
     const table = await getUpsampleTable(t.dataDir);
-    const stack = prepareStack({ light: resolveLight({ id: 'tungsten-3200' }), filters: [resolveFilter({ id: 'red-590' })], medium: resolveMedium({ id: 'panchromatic' }) });
-    const nodeM = nodeExposures(nodeReflectances(table), stack.mediumWeights);
+    const lightPath = prepareLightPath({ light: resolveLight({ id: 'tungsten-3200' }), filters: [resolveFilter({ id: 'red-590' })], medium: resolveMedium({ id: 'panchromatic' }) });
+    const nodeM = nodeExposures(nodeReflectances(table), lightPath.mediumWeights);
     const pipe = buildTonePipeline({ mediumId: 'medium.panchromatic', settings: { printGrade: 3 } });
     return (r: number, g: number, b: number) => {
       const cell = locateCell(table, srgbDecode(r), srgbDecode(g), srgbDecode(b));

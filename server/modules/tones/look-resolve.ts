@@ -7,7 +7,7 @@
 import { In, type EntityManager } from 'typeorm';
 import { Curve } from '../../db/entities/curve.entity';
 import { InvalidError } from '../../errors';
-import { resolveFilter, resolveLight, resolveMedium, type Stack, type FilterFactor } from '../../../shared/spectral/compute';
+import { resolveFilter, resolveLight, resolveMedium, type LightPath, type FilterFactor } from '../../../shared/spectral/compute';
 import { lookLightPath, type LookSpectra } from '../../../shared/look/compose-look';
 import { TONE_MEDIUM_IDS } from '../../../shared/tone/media-tone';
 import { SpectralInputError } from '../../../shared/spectral/errors';
@@ -39,7 +39,7 @@ export interface ResolvedLook {
   /** the tone-defaults id of the medium (shared/tone/media-tone.ts) */
   mediumToneId: string;
   /** the light path for the swatches: gelled light, lens filters, medium (built once, shared/look/compose-look.ts) */
-  path: Stack;
+  path: LightPath;
   /** filter factor of every filter (gels and lens) against the bare lamp, on the medium */
   factor: FilterFactor;
 }

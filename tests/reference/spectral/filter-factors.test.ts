@@ -3,7 +3,7 @@
  * practice (from memory); the cyan figure is a fact of the trade (common practice).
  */
 import { describe, expect, it } from 'vitest';
-import { resolveStack } from '../../../shared/spectral/compute';
+import { resolveLightPath } from '../../../shared/spectral/compute';
 import { OPAQUE_LIMIT_STOPS } from '../../../shared/spectral/limits';
 
 /** Default tolerance: ±½ stop (common practice quotes filter factors to the nearest half stop or so). */
@@ -31,7 +31,7 @@ const CYAN_TUNGSTEN_EXTRA_STOPS = 2 / 3;
 const TOL_CYAN_EXTRA = 1 / 4;
 
 const stops = (light: string, filter: string, medium: string) =>
-  resolveStack({ light: { id: light }, filters: [{ id: filter }], medium: { id: medium } }).factor;
+  resolveLightPath({ light: { id: light }, filters: [{ id: filter }], medium: { id: medium } }).factor;
 
 describe('filter factors on the panchromatic model in daylight (common practice, ±½ stop)', () => {
   for (const light of ['d65', 'daylight-5600']) {

@@ -1,6 +1,6 @@
 /** Physics checks of the model (DESIGN.md §3): consequences of the definitions, no outside figures. */
 import { describe, expect, it } from 'vitest';
-import { prepareStack, resolveStack, simulateSwatches, type ResolvedSwatch } from '../../../shared/spectral/compute';
+import { prepareLightPath, resolveLightPath, simulateSwatches, type ResolvedSwatch } from '../../../shared/spectral/compute';
 import { LIBRARY_FILTERS, LIBRARY_LIGHTS, LIBRARY_MEDIA } from '../../../shared/spectral/library';
 import { eyeMedium } from '../../../shared/spectral/media';
 import { cieIlluminant } from '../../../shared/spectral/lights';
@@ -18,7 +18,7 @@ const swatch = (name: string, reflectance = GREY): ResolvedSwatch => ({ name, re
 describe('physics of the model', () => {
   it('a red swatch reads darker on the orthochromatic model than on the panchromatic one (daylight and tungsten)', () => {
     for (const light of ['d65', 'tungsten-3200']) {
-      const on = (medium: string) => simulateSwatches(resolveStack({ light: { id: light }, medium: { id: medium } }), [swatch('red', RED)]).swatches[0].stops;
+      const on = (medium: string) => simulateSwatches(resolveLightPath({ light: { id: light }, medium: { id: medium } }), [swatch('red', RED)]).swatches[0].stops;
       expect(on('orthochromatic')).toBeLessThan(on('panchromatic') - 1);
     }
   });
@@ -26,10 +26,10 @@ describe('physics of the model', () => {
   it('a neutral grey keeps its stops through any filter, on any medium, under any light', () => {
     for (const l of LIBRARY_LIGHTS) {
       for (const m of LIBRARY_MEDIA) {
-        const plain = simulateSwatches(resolveStack({ light: { id: l.id }, medium: { id: m.id } }), [swatch('grey')]).swatches[0];
+        const plain = simulateSwatches(resolveLightPath({ light: { id: l.id }, medium: { id: m.id } }), [swatch('grey')]).swatches[0];
         expect(Math.abs(plain.stops)).toBeLessThanOrEqual(TOL);
         for (const f of LIBRARY_FILTERS) {
-          const r = simulateSwatches(resolveStack({ light: { id: l.id }, filters: [{ id: f.id }], medium: { id: m.id } }), [swatch('grey')]).swatches[0];
+          const r = simulateSwatches(resolveLightPath({ light: { id: l.id }, filters: [{ id: f.id }], medium: { id: m.id } }), [swatch('grey')]).swatches[0];
           expect(Math.abs(r.stops - plain.stops), `${l.id} ${f.id} ${m.id}`).toBeLessThanOrEqual(TOL);
         }
       }
@@ -38,21 +38,21 @@ describe('physics of the model', () => {
 
   it('under the eye medium without filters, every swatch has shift 0', () => {
     for (const l of LIBRARY_LIGHTS) {
-      const stack = prepareStack({ light: l.id === 'd65' ? cieIlluminant('D65') : resolveStack({ light: { id: l.id }, medium: { id: 'eye' } }).light, medium: eyeMedium() });
-      const res = simulateSwatches(stack, [swatch('grey'), swatch('red', RED), swatch('white', flat(0.9))]);
+      const lightPath = prepareLightPath({ light: l.id === 'd65' ? cieIlluminant('D65') : resolveLightPath({ light: { id: l.id }, medium: { id: 'eye' } }).light, medium: eyeMedium() });
+      const res = simulateSwatches(lightPath, [swatch('grey'), swatch('red', RED), swatch('white', flat(0.9))]);
       for (const s of res.swatches) expect(Math.abs(s.shift), `${l.id} ${s.name}`).toBeLessThanOrEqual(TOL);
     }
   });
 
   it('middle grey sits in zone V, one stop a zone', () => {
-    const stack = resolveStack({ light: { cie: 'D65' }, medium: { id: 'panchromatic' } });
-    const [grey, double] = simulateSwatches(stack, [swatch('grey'), swatch('double', flat(0.36))]).swatches;
+    const lightPath = resolveLightPath({ light: { cie: 'D65' }, medium: { id: 'panchromatic' } });
+    const [grey, double] = simulateSwatches(lightPath, [swatch('grey'), swatch('double', flat(0.36))]).swatches;
     expect(Math.abs(grey.zone - 5)).toBeLessThanOrEqual(TOL);
     expect(Math.abs(double.zone - 6)).toBeLessThanOrEqual(TOL);
     expect(Math.abs(double.eyeStops - 1)).toBeLessThanOrEqual(TOL);
   });
 
   it('filters only take light away: every preset costs ≥ 0 stops', () => {
-    for (const f of LIBRARY_FILTERS) expect(resolveStack({ light: { cie: 'D65' }, filters: [{ id: f.id }], medium: { id: 'panchromatic' } }).factor.stops).toBeGreaterThanOrEqual(0);
+    for (const f of LIBRARY_FILTERS) expect(resolveLightPath({ light: { cie: 'D65' }, filters: [{ id: f.id }], medium: { id: 'panchromatic' } }).factor.stops).toBeGreaterThanOrEqual(0);
   });
 });

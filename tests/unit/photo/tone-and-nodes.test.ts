@@ -3,7 +3,7 @@ import { greyOfStops, toneCurveTable, TONE_TABLE_STOPS, zoneOfStops } from '../.
 import { blendedReflectance, nodeExposures, nodeReflectances } from '../../../shared/spectral/node-spectra';
 import { composeLook, lookFingerprint, type LookSpectra } from '../../../shared/look/compose-look';
 import { buildTonePipeline } from '../../../shared/tone/tone-pipeline';
-import { resolveFilter, resolveLight, resolveMedium, resolveStack, simulateSwatches } from '../../../shared/spectral/compute';
+import { resolveFilter, resolveLight, resolveMedium, resolveLightPath, simulateSwatches } from '../../../shared/spectral/compute';
 import { sigmoidReflectance } from '../../../shared/spectral/upsample';
 import { keyOffsetStops } from '../../../shared/tone/zones';
 import { constantSpectrum } from '../../../shared/spectral/spectrum';
@@ -36,25 +36,25 @@ describe('the tabulated tone curve', () => {
 describe('node spectra kept for many looks', () => {
   it('are the model spectra of the table’s coefficients (float32), and give their exposures', () => {
     const table = upsampleTable();
-    const stack = resolveStack({ light: { id: 'd65' }, filters: [{ id: 'orange-550' }], medium: { id: 'orthochromatic' } });
+    const lightPath = resolveLightPath({ light: { id: 'd65' }, filters: [{ id: 'orange-550' }], medium: { id: 'orthochromatic' } });
     const refl = nodeReflectances(table);
     expect(nodeReflectances(table)).toBe(refl); // computed once per table
-    const m = nodeExposures(refl, stack.mediumWeights);
+    const m = nodeExposures(refl, lightPath.mediumWeights);
     const n = table.coefficients.length / 3;
     for (let k = 0; k < n; k += 997) {
       const rho = sigmoidReflectance(Array.from(table.coefficients.subarray(3 * k, 3 * k + 3)));
-      const direct = simulateSwatches(stack, [{ name: 'node', reflectance: rho, estimated: true }]).swatches[0].exposure;
+      const direct = simulateSwatches(lightPath, [{ name: 'node', reflectance: rho, estimated: true }]).swatches[0].exposure;
       expect(Math.abs(m[k] - direct)).toBeLessThan(TOL * Math.max(direct, 1e-3));
     }
   });
 
   it('blend into a colour’s estimate whose exposure is the same blend of node exposures', () => {
     const table = upsampleTable();
-    const stack = resolveStack({ light: { id: 'tungsten-3200' }, filters: [{ id: 'red-590' }], medium: { id: 'panchromatic' } });
-    const m = nodeExposures(nodeReflectances(table), stack.mediumWeights);
+    const lightPath = resolveLightPath({ light: { id: 'tungsten-3200' }, filters: [{ id: 'red-590' }], medium: { id: 'panchromatic' } });
+    const m = nodeExposures(nodeReflectances(table), lightPath.mediumWeights);
     const model = { upsample: table, nodeM: m };
     for (const rgb of [[0.6, 0.2, 0.1], [0.05, 0.3, 0.7], [0.5, 0.5, 0.5]] as [number, number, number][]) {
-      const viaSpectrum = simulateSwatches(stack, [{ name: 'c', reflectance: blendedReflectance(table, rgb), estimated: true }]).swatches[0].exposure;
+      const viaSpectrum = simulateSwatches(lightPath, [{ name: 'c', reflectance: blendedReflectance(table, rgb), estimated: true }]).swatches[0].exposure;
       expect(Math.abs(pixelExposure(model as never, ...rgb) - viaSpectrum)).toBeLessThan(1e-12);
     }
   });

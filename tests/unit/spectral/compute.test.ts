@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { filterFactor, prepareStack, resolveStack, resolveSwatch, simulate, simulateSwatches, stopsFromGrey, type SimulationInput } from '../../../shared/spectral/compute';
+import { filterFactor, prepareLightPath, resolveLightPath, resolveSwatch, simulate, simulateSwatches, stopsFromGrey, type SimulationInput } from '../../../shared/spectral/compute';
 import { SpectralInputError } from '../../../shared/spectral/errors';
 import { longPass, neutralDensity } from '../../../shared/spectral/filters';
 import { cieIlluminant } from '../../../shared/spectral/lights';
@@ -17,8 +17,8 @@ const req = (r: Partial<SimulationInput>): SimulationInput => ({ light: { cie: '
 
 describe('the computation', () => {
   it('gives XYZ with Y = 100 for white, L* = 100, and the tones of DESIGN.md §3', () => {
-    const stack = prepareStack({ light: cieIlluminant('D65'), medium: eyeMedium() });
-    const [w, g] = simulateSwatches(stack, [
+    const lightPath = prepareLightPath({ light: cieIlluminant('D65'), medium: eyeMedium() });
+    const [w, g] = simulateSwatches(lightPath, [
       { name: 'white', reflectance: flat(1), estimated: false },
       { name: 'grey', reflectance: flat(0.18), estimated: false },
     ]).swatches;
@@ -37,13 +37,13 @@ describe('the computation', () => {
     expect(f.opaque).toBe(false);
   });
   it('caps a filter that passes nothing the medium sees, and flags it opaque', () => {
-    const s = prepareStack({ light: cieIlluminant('D65'), filters: [neutralDensity(10), neutralDensity(10)], medium: eyeMedium() });
+    const s = prepareLightPath({ light: cieIlluminant('D65'), filters: [neutralDensity(10), neutralDensity(10)], medium: eyeMedium() });
     expect(s.factor.stops).toBe(MAX_FILTER_STOPS);
     expect(s.factor.opaque).toBe(true);
   });
   it('floors black at FLOOR_STOPS and clamps zones to 0..10', () => {
-    const stack = prepareStack({ light: cieIlluminant('D65'), medium: eyeMedium() });
-    const [b] = simulateSwatches(stack, [{ name: 'black', reflectance: flat(0), estimated: false }]).swatches;
+    const lightPath = prepareLightPath({ light: cieIlluminant('D65'), medium: eyeMedium() });
+    const [b] = simulateSwatches(lightPath, [{ name: 'black', reflectance: flat(0), estimated: false }]).swatches;
     expect(b.stops).toBe(FLOOR_STOPS);
     expect(b.zone).toBe(0);
     expect(stopsFromGrey(0.36)).toBeCloseTo(1, 12);
@@ -80,11 +80,11 @@ describe('resolution errors name the field', () => {
     expect(e.reason).toMatch(message);
   });
   it('a medium blind to the light is refused on medium', () => {
-    const e = errorOf(() => resolveStack({ light: { samples: [[380, 1], [400, 1], [450, 0], [780, 0]] }, medium: { samples: [[380, 0], [600, 0], [650, 1], [780, 1]] } }));
+    const e = errorOf(() => resolveLightPath({ light: { samples: [[380, 1], [400, 1], [450, 0], [780, 0]] }, medium: { samples: [[380, 0], [600, 0], [650, 1], [780, 1]] } }));
     expect(e.field).toBe('medium');
   });
   it('filters can be parametric', () => {
-    const s = resolveStack({ light: { cie: 'D65' }, filters: [{ longPass: { cutOnNm: 550 } }], medium: { id: 'panchromatic' } });
+    const s = resolveLightPath({ light: { cie: 'D65' }, filters: [{ longPass: { cutOnNm: 550 } }], medium: { id: 'panchromatic' } });
     expect(s.filters[0].values[40]).toBeCloseTo(longPass({ cutOnNm: 550 }).values[40], 12);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { prepareStack, resolveStack, simulateSwatches, type Stack } from '../../../shared/spectral/compute';
+import { prepareLightPath, resolveLightPath, simulateSwatches, type LightPath } from '../../../shared/spectral/compute';
 import { srgbToLinear, type Rgb3 } from '../../../shared/spectral/colour';
 import { reflectanceFromLab, reflectanceFromSrgb } from '../../../shared/spectral/estimate';
 import { SpectralInputError } from '../../../shared/spectral/errors';
@@ -74,21 +74,21 @@ describe('estimated reflectances', () => {
 
 describe('the blended node spectra (node-spectra.ts, what photos use)', () => {
   const table = upsampleTable();
-  const stack = resolveStack({ light: { cie: 'D65' }, filters: [{ id: 'red-590' }], medium: { id: 'panchromatic' } });
-  const exposureOf = (s: Stack, rgb: Rgb3) => simulateSwatches(s, [{ name: 'n', reflectance: blendedReflectance(table, rgb), estimated: true }]).swatches[0].exposure;
+  const lightPath = resolveLightPath({ light: { cie: 'D65' }, filters: [{ id: 'red-590' }], medium: { id: 'panchromatic' } });
+  const exposureOf = (s: LightPath, rgb: Rgb3) => simulateSwatches(s, [{ name: 'n', reflectance: blendedReflectance(table, rgb), estimated: true }]).swatches[0].exposure;
 
   it('read greys as themselves (opened up by the filter factor)', () => {
-    for (let i = 0; i <= 8; i++) expect(Math.abs(exposureOf(stack, [i / 8, i / 8, i / 8]) - i / 8)).toBeLessThan(2e-3);
+    for (let i = 0; i <= 8; i++) expect(Math.abs(exposureOf(lightPath, [i / 8, i / 8, i / 8]) - i / 8)).toBeLessThan(2e-3);
   });
   it('agree with the single-colour estimate to a small fraction of a stop', () => {
     for (const hex of ['#b01c2e', '#2e6b3a', '#3050a0', '#d8b090']) {
-      const single = simulateSwatches(stack, [{ name: hex, reflectance: reflectanceFromSrgb(hex, table), estimated: true }]).swatches[0].exposure;
+      const single = simulateSwatches(lightPath, [{ name: hex, reflectance: reflectanceFromSrgb(hex, table), estimated: true }]).swatches[0].exposure;
       const rgb = srgbToLinear([parseInt(hex.slice(1, 3), 16) / 255, parseInt(hex.slice(3, 5), 16) / 255, parseInt(hex.slice(5, 7), 16) / 255]);
-      expect(Math.abs(Math.log2(exposureOf(stack, rgb) / single))).toBeLessThan(0.1);
+      expect(Math.abs(Math.log2(exposureOf(lightPath, rgb) / single))).toBeLessThan(0.1);
     }
   });
   it('under the eye medium give luminance Y/100', () => {
-    const eye = prepareStack({ light: cieIlluminant('D65'), medium: eyeMedium() });
+    const eye = prepareLightPath({ light: cieIlluminant('D65'), medium: eyeMedium() });
     expect(Math.abs(exposureOf(eye, [1, 0, 0]) - 0.2126390058715102)).toBeLessThan(1e-4); // linear red: Y = 0.2126 (IEC 61966-2-1)
   });
 });
