@@ -1,12 +1,13 @@
 /**
- * Server-side loading and caching of the spectral upsampling table (shared/spectral/upsample-table.ts).
- * Built once per process (about a second) on first use, and cached in DATA_DIR/cache so a restart
- * only reads it. The file is versioned by the method's version and resolution; a stale or damaged
+ * Server-side loading and caching of the colour estimate's table (shared/spectral/upsample-table.ts).
+ * Built once per install (a few seconds) on first use, and cached in DATA_DIR/cache so a restart only
+ * reads it; the browser gets its compact form, gzip-compressed once. The file is versioned by the method's version and resolution; a stale or damaged
  * file is rebuilt.
  */
 import fs from 'node:fs/promises';
 import path from 'node:path';
-import { buildUpsampleTable, decodeUpsampleTable, encodeUpsampleTable, UPSAMPLE_METHOD, type UpsampleTable } from '../../shared/spectral/upsample-table';
+import zlib from 'node:zlib';
+import { buildUpsampleTable, decodeUpsampleTable, encodeUpsampleTable, encodeUpsampleTableCompact, UPSAMPLE_METHOD, type UpsampleTable } from '../../shared/spectral/upsample-table';
 
 let built: { table: UpsampleTable; bytes: Uint8Array } | null = null;
 const perDir = new Map<string, Promise<{ table: UpsampleTable; bytes: Uint8Array }>>();
@@ -60,7 +61,16 @@ export async function getUpsampleTable(dataDir: string): Promise<UpsampleTable> 
   return (await entry(dataDir)).table;
 }
 
-/** The table's binary form (layout in shared/spectral/upsample-table.ts), for the browser. */
-export async function getUpsampleTableBytes(dataDir: string): Promise<Uint8Array> {
-  return (await entry(dataDir)).bytes;
+const compact = new WeakMap<UpsampleTable, Promise<Buffer>>();
+
+/** The table's compact binary form ("GSQ2", shared/spectral/upsample-table.ts), gzip-compressed, for the browser. */
+export async function getUpsampleTableGzip(dataDir: string): Promise<Buffer> {
+  const table = (await entry(dataDir)).table;
+  let p = compact.get(table);
+  if (!p) {
+    const bytes = encodeUpsampleTableCompact(table);
+    p = new Promise<Buffer>((resolve, reject) => zlib.gzip(bytes, { level: 6 }, (e, out) => (e ? reject(e) : resolve(out))));
+    compact.set(table, p);
+  }
+  return p;
 }

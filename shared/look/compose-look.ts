@@ -16,7 +16,7 @@ import { lightThroughGel } from '../spectral/lights';
 import type { Spectrum } from '../spectral/spectrum';
 import { buildTonePipeline, type TonePipeline, type ToneSettingsLike } from '../tone/tone-pipeline';
 import { keyOffsetStops } from '../tone/zones';
-import type { SwatchTone } from '../schemas/board';
+import type { SwatchTone, ToneRange } from '../schemas/board';
 import { codeOfStops, outputCodes, toneCurveTable, type OutputBits, type ToneCurveTable } from './tone-curve-table';
 
 /** Where a filter sits: on the lens (only the camera sees it) or on the light (a gel: the eye sees it too). */
@@ -90,11 +90,12 @@ export type LookTone = Omit<SwatchTone, 'swatchId' | 'lab'>;
 
 /**
  * A surface's tone through a look from its medium and eye stops before key placement (the engine's
- * `simulateSwatches` gives both).
+ * `simulateSwatches` gives both), and the range of its stops before key placement when it is estimated.
  */
-export function toneThrough(look: ComposedLook, stopsBeforeKey: number, eyeStopsBeforeKey: number): LookTone {
+export function toneThrough(look: ComposedLook, stopsBeforeKey: number, eyeStopsBeforeKey: number, rangeBeforeKey?: ToneRange): LookTone {
   const t = look.pipeline.renderStops(stopsBeforeKey);
   const eyeStops = eyeStopsBeforeKey + look.offsetStops;
+  const shift = (r: [number, number]): [number, number] => [r[0] + look.offsetStops, r[1] + look.offsetStops];
   return {
     stops: t.stops,
     eyeStops,
@@ -104,6 +105,7 @@ export function toneThrough(look: ComposedLook, stopsBeforeKey: number, eyeStops
     grey: codeOfStops(look.codes(8), stopsBeforeKey),
     lost: t.lost,
     blown: t.blown,
+    range: rangeBeforeKey ? { possible: shift(rangeBeforeKey.possible), plausible: shift(rangeBeforeKey.plausible) } : { possible: [t.stops, t.stops], plausible: [t.stops, t.stops] },
   };
 }
 

@@ -87,6 +87,18 @@ export interface SwatchTone {
   blown: boolean;
   /** L*a*b* to the eye under the look's light */
   lab: [number, number, number];
+  /** how far `stops` could move (same scale): zero width for measured reflectance */
+  range: ToneRange;
+}
+
+/**
+ * How far a tone could move when the swatch's spectrum is estimated, in stops after key placement:
+ * `possible` over every reflectance 0..1 with the colour, `plausible` over smooth, realistic ones (and the
+ * estimate itself). See shared/spectral/metamer-range.ts.
+ */
+export interface ToneRange {
+  possible: [number, number];
+  plausible: [number, number];
 }
 
 /** Two swatches that read as one grey on the medium though they differ to the eye. */
@@ -97,6 +109,11 @@ export interface Merge {
   stopsApart: number;
   /** CIEDE2000 to the eye */
   deltaE: number;
+  /**
+   * `certain`: the plausible ranges of both lie within the threshold of each other entirely (they merge
+   * whatever their spectra); `possible`: some plausible spectra would merge them (measure to be sure)
+   */
+  certainty: 'certain' | 'possible';
 }
 
 export interface LookTones {

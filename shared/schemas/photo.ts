@@ -120,3 +120,21 @@ export interface RenderStatus {
   bytes: number | null;
   error: string | null;
 }
+
+/** POST …/photos/uncertainty: the look whose uncertainty overlay is wanted (a saved look or a definition). */
+export const uncertaintyRequestSchema = photoLookRequestSchema;
+
+/**
+ * An uncertainty table for the photos page's overlay: per sRGB colour, how wide the plausible range of its
+ * tone is through the look (stops). `widths` (size³ numbers, index (b·size + g)·size + r, node i at the
+ * encoded value i / (size − 1)) arrives when `status` is done; poll GET …/photos/uncertainty/:key until then.
+ */
+export interface UncertaintyStatus {
+  key: string;
+  status: 'running' | 'done' | 'failed';
+  /** 0..1 */
+  progress: number;
+  size: number;
+  widths: number[] | null;
+  error: string | null;
+}

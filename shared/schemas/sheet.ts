@@ -2,6 +2,7 @@
  * The exposure sheet of a look: GET /api/productions/:productionId/looks/:lookId/sheet (JSON, for the
  * printable page) and …/sheet.pdf (the same content as a PDF). Documented in docs/api-sheets.md.
  */
+import type { ToneRange } from './board';
 import type { EiChainStepAnswer, ToneSettings } from './exposure';
 import type { FilterPlace } from './look';
 
@@ -61,6 +62,8 @@ export interface SheetSwatch {
   blown: boolean;
   /** the look's key swatch */
   key: boolean;
+  /** how far `stops` could move (same scale; zero width when measured) */
+  range: ToneRange;
 }
 
 export interface ExposureSheet {

@@ -30,6 +30,8 @@ export const simulateRequestSchema = z.strictObject({
   filters: z.array(filterSourceSchema).max(MAX_FILTERS, `at most ${MAX_FILTERS} filters`).default([]),
   medium: mediumSourceSchema,
   swatches: z.array(swatchSourceSchema).max(MAX_SWATCHES, `at most ${MAX_SWATCHES} swatches`).default([]),
+  /** also answer, per estimated swatch, the reflectances reaching its possible range's ends */
+  extremes: z.boolean().optional(),
 });
 export type SimulateRequest = z.infer<typeof simulateRequestSchema>;
 export type SimulateRequestInput = z.input<typeof simulateRequestSchema>;

@@ -32,6 +32,8 @@ import { kindOfId, libraryFilter, libraryLight, libraryMedium } from './library'
 import { blackbody, cieIlluminant, daylight, lightThroughGel, whiteLed } from './lights';
 import { FLOOR_STOPS, MAX_FILTER_STOPS, MIDDLE_GREY, OPAQUE_LIMIT_STOPS } from './limits';
 import { eyeMedium, mediumFromModel } from './media';
+import { GRID_NM_LIST } from './grid';
+import { exposureRange, xyzD65 } from './metamer-range';
 import { GRID_SIZE } from './policy';
 import type { FilterSource, LightSource, MediumSource, SwatchSource } from './sources';
 import { constantSpectrum, multiply, onGrid } from './spectrum';
@@ -59,6 +61,20 @@ export interface SwatchResult {
   zone: number;
   /** true when the spectrum was estimated from a colour value */
   estimated: boolean;
+  /** how far the tone could move, on the scale of `stops` (when asked for; zero width for measured reflectance) */
+  range?: StopsRange;
+}
+
+/**
+ * How sure a tone is (metamer-range.ts): the lowest and highest stops any reflectance 0..1 with the
+ * swatch's colour under D65 could give (`possible`), and the same over smooth, realistic reflectances
+ * (`plausible`, which also holds the estimate itself). Zero width for a measured reflectance.
+ */
+export interface StopsRange {
+  possible: [number, number];
+  plausible: [number, number];
+  /** the reflectances (on the grid, [nm, ρ]) reaching the possible range's ends, when asked for */
+  extremes?: { low: [number, number][]; high: [number, number][] };
 }
 
 /** A simulation of a light path and its swatches (the answer of POST /api/simulate, `SimulateResponse`). */
@@ -80,6 +96,8 @@ export interface SimulationInput {
   filters?: readonly FilterSource[];
   medium: MediumSource;
   swatches: readonly SwatchSource[];
+  /** also answer the reflectances reaching each possible range's ends */
+  extremes?: boolean;
 }
 
 function unknownId(id: string, want: string): SpectralInputError {
@@ -249,11 +267,37 @@ export function stopsFromGrey(relative: number): number {
   return Math.log2(Math.max(relative, FLOOR) / MIDDLE_GREY);
 }
 
+/** What `simulateSwatches` adds on request: the range of each tone, and the reflectances at its ends. */
+export interface SimulateOptions {
+  ranges?: boolean;
+  extremes?: boolean;
+}
+
+/**
+ * The range (in stops before key placement) of a swatch's tone through `lightPath`, from its reflectance
+ * and its exposure m there: zero width when measured, else the metamer programs of metamer-range.ts.
+ */
+export function stopsRange(lightPath: LightPath, swatch: Pick<ResolvedSwatch, 'reflectance' | 'estimated'>, m: number, extremes = false): StopsRange {
+  const stops = stopsFromGrey(m);
+  if (!swatch.estimated) return { possible: [stops, stops], plausible: [stops, stops] };
+  const r = exposureRange(xyzD65(onGrid(swatch.reflectance).values), lightPath.mediumWeights, m, { extremes });
+  const out: StopsRange = {
+    possible: [stopsFromGrey(r.possible[0]), stopsFromGrey(r.possible[1])],
+    plausible: [stopsFromGrey(r.plausible[0]), stopsFromGrey(r.plausible[1])],
+  };
+  if (r.extremes) {
+    const pairs = (v: Float64Array) => Array.from(v, (x, i) => [GRID_NM_LIST[i], Math.round(x * 1e6) / 1e6] as [number, number]);
+    out.extremes = { low: pairs(r.extremes.low), high: pairs(r.extremes.high) };
+  }
+  return out;
+}
+
 /**
  * Every swatch through `lightPath`: XYZ and L*a*b* to the eye, exposure m, stops, eye stops, shift and
- * zone (definitions in the header). Cost per swatch: four 81-sample dot products.
+ * zone (definitions in the header), and with `options.ranges` how far each tone could move. Cost per
+ * swatch: four 81-sample dot products, plus four small linear programs for a range.
  */
-export function simulateSwatches(lightPath: LightPath, swatches: readonly ResolvedSwatch[]): SimulationResult {
+export function simulateSwatches(lightPath: LightPath, swatches: readonly ResolvedSwatch[], options: SimulateOptions = {}): SimulationResult {
   const { x: wx, y: wy, z: wz } = lightPath.eyeWeights;
   const wm = lightPath.mediumWeights;
   const out: SwatchResult[] = swatches.map((s) => {
@@ -282,6 +326,7 @@ export function simulateSwatches(lightPath: LightPath, swatches: readonly Resolv
       shift: stops - eyeStops,
       zone: Math.min(10, Math.max(0, 5 + stops)),
       estimated: s.estimated,
+      ...(options.ranges ? { range: stopsRange(lightPath, s, m, options.extremes) } : {}),
     };
   });
   return { filterFactor: lightPath.factor.factor, filterStops: lightPath.factor.stops, opaque: lightPath.factor.opaque, white: lightPath.white, swatches: out };
@@ -291,5 +336,5 @@ export function simulateSwatches(lightPath: LightPath, swatches: readonly Resolv
 export function simulate(request: SimulationInput, table: UpsampleTable | null): SimulationResult {
   const lightPath = resolveLightPath(request);
   const swatches = request.swatches.map((s, i) => within(['swatches', i], () => resolveSwatch(s, table)));
-  return simulateSwatches(lightPath, swatches);
+  return simulateSwatches(lightPath, swatches, { ranges: true, extremes: request.extremes === true });
 }

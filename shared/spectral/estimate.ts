@@ -1,15 +1,18 @@
 /**
  * Estimated reflectances for colour values (sRGB hex or triple, linear sRGB, L*a*b*), which have no
- * spectrum of their own: the smooth upsampling of upsample.ts (Jakob & Hanika 2019), tabulated over linear
- * sRGB (upsample-table.ts); a colour's reflectance is the blend of its table cell's node spectra
- * (node-spectra.ts), which reproduces it under D65 (ΔE00 about 1e-5, except at pure white, which the model
- * only approaches). Swatches and photo pixels share it, so a colour gets one grey everywhere.
+ * spectrum of their own: the smoothest reflectance with the colour under D65 (LHTSS, Burns 2020: lhtss.ts),
+ * tabulated over linear sRGB (upsample-table.ts); a colour's reflectance is the blend of its table cell's
+ * node spectra (node-spectra.ts), which reproduces it under D65 (ΔE00 about 1e-5; 0.02 at pure white, where
+ * the integrated D65 white and the sRGB white part). Swatches and photo pixels share it, so a colour gets
+ * one grey everywhere.
  */
 import { SpectralInputError } from './errors';
 import { hexToSrgb, labToXyz, srgbToLinear, xyzToLinearSrgb } from './colour';
 import { blendedReflectance } from './node-spectra';
-import type { UpsampleTable } from './upsample-table';
-import type { Lab3, Rgb3, Spectrum } from './types';
+import { estimateRows, type UpsampleTable } from './upsample-table';
+import { lhtss } from './lhtss';
+import { makeSpectrum } from './spectrum';
+import type { Lab3, Rgb3, Spectrum, Xyz } from './types';
 
 /** Linear sRGB outside [−ε, 1 + ε] is out of gamut (ε absorbs rounding of typed-in L*a*b*). */
 export const GAMUT_EPSILON = 2e-3;
@@ -47,9 +50,14 @@ export function reflectanceFromLab(lab: Lab3, table: UpsampleTable): Spectrum {
 }
 
 /**
- * A reflectance (0..1) reproducing CIE XYZ under D65 (Y = 100 for white), for colours given as XYZ (a
- * measured colour without its spectrum): through linear sRGB when it lies in the gamut, else clamped.
+ * A reflectance (0..1) reproducing CIE XYZ under D65 (Y = 100 for white), for a colour measured without its
+ * spectrum: the table's blend when the colour lies in the sRGB gamut (as for colour values), else the
+ * estimate solved for it directly (lhtss.ts), which reaches any colour a reflectance can have.
  */
-export function estimateFromXyz(xyz: readonly [number, number, number], table: UpsampleTable): Spectrum {
-  return reflectanceFromLinearRgb(xyzToLinearSrgb(xyz as [number, number, number]), table);
+export function estimateFromXyz(xyz: Xyz, table: UpsampleTable): Spectrum {
+  const lin = xyzToLinearSrgb(xyz);
+  if (lin.every((v) => v >= 0 && v <= 1)) return reflectanceFromLinearRgb(lin, table);
+  const r = lhtss(estimateRows(), xyz);
+  if (!r.converged) throw new SpectralInputError(`XYZ (${xyz.map((v) => v.toFixed(2)).join(', ')}) is not the colour of any reflectance 0..1 under D65`);
+  return makeSpectrum(r.reflectance);
 }

@@ -1,6 +1,6 @@
 /**
  * The estimate's node spectra: every node of the upsampling table (upsample-table.ts) as a reflectance on
- * the working grid, computed once per table and shared by everything that estimates colours — single
+ * the working grid, shared by everything that estimates colours — single
  * swatches and photo pixels alike. A colour's estimated reflectance is the trilinear blend of its table
  * cell's eight corner spectra; that blend reproduces the colour under D65 exactly (the node colours are
  * trilinear in the cell), and since the medium exposure is linear in the reflectance, a photo needs only
@@ -9,28 +9,11 @@
  */
 import { GRID_SIZE } from './policy';
 import { makeSpectrum, type Spectrum } from './spectrum';
-import { sigmoidInto } from './upsample';
 import { locateCell, type TableCell, type UpsampleTable } from './upsample-table';
 
-const memo = new WeakMap<UpsampleTable, Float32Array>();
-
-/**
- * Reflectance 0..1 of every node of `table` on the working grid (node k's 81 values from k·81), computed
- * once per table and kept while the table lives. Float32 (32 MB for a 3 × 32³ table).
- */
+/** Reflectance 0..1 of every node of `table` on the working grid (node k's 81 values from k·81). */
 export function nodeReflectances(table: UpsampleTable): Float32Array {
-  let out = memo.get(table);
-  if (out) return out;
-  const cf = table.coefficients;
-  const n = cf.length / 3;
-  out = new Float32Array(n * GRID_SIZE);
-  const row = new Float64Array(GRID_SIZE);
-  for (let k = 0; k < n; k++) {
-    sigmoidInto(cf[3 * k], cf[3 * k + 1], cf[3 * k + 2], row);
-    out.set(row, k * GRID_SIZE);
-  }
-  memo.set(table, out);
-  return out;
+  return table.spectra;
 }
 
 /**

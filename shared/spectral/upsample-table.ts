@@ -1,34 +1,43 @@
 /**
- * The tabulated upsampling (Jakob & Hanika 2019, see upsample.ts): coefficients fitted once on a
- * 3 × R³ grid over linear sRGB, looked up by trilinear interpolation. Parameters and source:
- * data/upsample/method.json. The table is big (R = 32: 294,912 floats), so it is passed in by the
- * caller: built by `buildUpsampleTable()` (about a second or two) and cached by the server
- * (server/services/upsample-table.ts), fetched by the browser as binary (GET /api/library/upsample-table).
+ * The colour estimate, tabulated: for each node of a 3 × R³ grid over linear sRGB, the LHTSS reflectance of
+ * the node's colour (lhtss.ts: the smoothest reflectance in (0, 1) with that colour under D65, Burns 2020).
+ * A colour's estimate is the trilinear blend of its cell's eight node spectra (node-spectra.ts), which
+ * reproduces it exactly. Parameters and source: data/upsample/method.json. The table is big (R = 32:
+ * 98,304 spectra of 81 samples), so it is passed in by the caller: built by `buildUpsampleTable()` (a few
+ * seconds) and cached by the server (server/services/upsample-table.ts); the browser fetches a compact
+ * form (GET /api/library/upsample-table).
  *
- * Layout (as in the paper): for a linear colour, l = index of its largest channel, z = that channel,
- * x = rgb[(l+1)%3] / z, y = rgb[(l+2)%3] / z. Nodes: x and y uniform on 0..1; z at
- * smoothstep(smoothstep(k / (R − 1))). coefficients[((((l·R + zi)·R + yi)·R + xi)·3 + c].
+ * Layout (as in Jakob & Hanika 2019, whose table layout this keeps): for a linear colour, l = index of its
+ * largest channel, z = that channel, x = rgb[(l+1)%3] / z, y = rgb[(l+2)%3] / z. Nodes: x and y uniform on
+ * 0..1; z at smoothstep(smoothstep(k / (R − 1))), dense near black and white. Node index
+ * ((l·R + zi)·R + yi)·R + xi; its spectrum at spectra[node·81 …].
  *
- * Binary form (little-endian): bytes 0–3 "GSU1"; uint32 R; uint32 method version; float32 zNodes[R];
- * float32 coefficients[3·R³·3].
+ * Binary forms (little-endian), both starting: 4-byte magic; uint32 R; uint32 method version; uint32 grid
+ * samples (81); float32 zNodes[R]; then
+ *   "GSU2" float32 spectra[3·R³·81] (the server's cache: exact);
+ *   "GSQ2" uint16 spectra quantised to 1/65535, each stored less its linear prediction from the two samples
+ *          before it (mod 2¹⁶), which compresses better; the server sends it gzip-compressed (about 6 MB,
+ *          for the browser's live preview).
  */
 import methodJson from '../../data/upsample/method.json';
 import { linearSrgbToXyz } from './colour';
+import { tristimulusWeights } from './integrate';
+import { lhtss, type ColourRows, type LhtssState } from './lhtss';
+import { cieIlluminant } from './lights';
+import { GRID_SIZE } from './policy';
 import type { Rgb3 } from './types';
-import { fitCoefficients, type Coefficients } from './upsample';
 
-/** The coefficient table. */
+/** The tabulated estimate. */
 export interface UpsampleTable {
   readonly resolution: number;
   readonly version: number;
   readonly zNodes: Float32Array;
-  readonly coefficients: Float32Array;
+  /** reflectance 0..1 of every node on the working grid: node k's GRID_SIZE values from k·GRID_SIZE */
+  readonly spectra: Float32Array;
 }
 
 /** Method parameters and published source of the table (data/upsample/method.json). */
 export const UPSAMPLE_METHOD: { name: string; source: string; version: number; resolution: number } = methodJson;
-
-const MAGIC = 'GSU1';
 
 function smoothstep(x: number): number {
   return x * x * (3 - 2 * x);
@@ -39,14 +48,38 @@ export function zNodesFor(resolution: number): Float32Array {
   return Float32Array.from({ length: resolution }, (_, k) => smoothstep(smoothstep(k / (resolution - 1))));
 }
 
+/** The colour rows of the estimate: CIE 1931 2° tristimulus weights of D65 on the grid (integrate.ts). */
+export function estimateRows(): ColourRows {
+  const w = tristimulusWeights(cieIlluminant('D65'));
+  return [w.x, w.y, w.z];
+}
+
 /**
- * Builds the table by fitting every node (Gauss–Newton in CIELAB, each (x, y) column walked outward
- * from z-node R/5 reusing the neighbour's solution, as in the paper). Pure and deterministic.
+ * The estimate's reflectance of one linear sRGB colour (each 0..1), solved directly (no table): LHTSS from
+ * `start` or from ρ = ½, so nodes reuse their neighbour's solution. Black is ρ = 0 and a colour the solver
+ * cannot reach to 1e-9 (only the last steps next to pure white, where ρ → 1) is the flat reflectance of its
+ * luminance, which is what LHTSS tends to there.
+ */
+export function estimateNode(rows: ColourRows, rgb: Rgb3, start?: LhtssState): { reflectance: Float64Array; state?: LhtssState } {
+  if (rgb[0] <= 0 && rgb[1] <= 0 && rgb[2] <= 0) return { reflectance: new Float64Array(GRID_SIZE) };
+  const xyz = linearSrgbToXyz(rgb);
+  let r = lhtss(rows, xyz, start);
+  if (!r.converged && start) r = lhtss(rows, xyz);
+  if (r.converged) return { reflectance: r.reflectance, state: r.state };
+  let white = 0;
+  for (let i = 0; i < GRID_SIZE; i++) white += rows[1][i];
+  return { reflectance: new Float64Array(GRID_SIZE).fill(Math.min(1, Math.max(0, xyz[1] / white))) };
+}
+
+/**
+ * Builds the table: every node's estimate, each (x, y) column walked outward from z-node R/5 reusing the
+ * neighbour's solution (as Jakob & Hanika walk theirs). Pure and deterministic.
  */
 export function buildUpsampleTable(resolution: number = UPSAMPLE_METHOD.resolution): UpsampleTable {
   const R = resolution;
   const zNodes = zNodesFor(R);
-  const coefficients = new Float32Array(3 * R * R * R * 3);
+  const spectra = new Float32Array(3 * R * R * R * GRID_SIZE);
+  const rows = estimateRows();
   const start = Math.floor(R / 5);
   const rgb: Rgb3 = [0, 0, 0];
   for (let l = 0; l < 3; l++) {
@@ -55,17 +88,15 @@ export function buildUpsampleTable(resolution: number = UPSAMPLE_METHOD.resoluti
       for (let xi = 0; xi < R; xi++) {
         const x = xi / (R - 1);
         const walk = (from: number, to: number, dir: number) => {
-          let c: Coefficients = [0, 0, 0];
+          let state: LhtssState | undefined;
           for (let zi = from; zi !== to; zi += dir) {
             const z = zNodes[zi];
             rgb[l] = z;
             rgb[(l + 1) % 3] = x * z;
             rgb[(l + 2) % 3] = y * z;
-            c = fitCoefficients(linearSrgbToXyz(rgb), c, { maxIterations: 40, tolerance: 1e-5 }).coefficients;
-            const at = ((((l * R + zi) * R + yi) * R + xi) * 3);
-            coefficients[at] = c[0];
-            coefficients[at + 1] = c[1];
-            coefficients[at + 2] = c[2];
+            const e = estimateNode(rows, rgb, state);
+            state = e.state;
+            spectra.set(e.reflectance, (((l * R + zi) * R + yi) * R + xi) * GRID_SIZE);
           }
         };
         walk(start, R, 1);
@@ -73,7 +104,7 @@ export function buildUpsampleTable(resolution: number = UPSAMPLE_METHOD.resoluti
       }
     }
   }
-  return { resolution: R, version: UPSAMPLE_METHOD.version, zNodes, coefficients };
+  return { resolution: R, version: UPSAMPLE_METHOD.version, zNodes, spectra };
 }
 
 /** Where a colour sits in the table: the lower corner node and the fractions along x, y, z. */
@@ -155,54 +186,85 @@ export function interpolateAtCell(table: UpsampleTable, values: ArrayLike<number
   return (c00 * (1 - fy) + c01 * fy) * (1 - fz) + (c10 * (1 - fy) + c11 * fy) * fz;
 }
 
-const lookupCell: TableCell = { node: 0, fx: 0, fy: 0, fz: 0 };
 
-/**
- * Coefficients for a linear sRGB colour (channels clamped to 0..1) by trilinear interpolation of the
- * table's coefficients. Writes into `out` and returns it.
- */
-export function lookupCoefficients(table: UpsampleTable, r: number, g: number, b: number, out: Coefficients = [0, 0, 0]): Coefficients {
-  locateCell(table, r, g, b, lookupCell);
-  for (let c = 0; c < 3; c++) out[c] = interpolateAtCell(table, table.coefficients, 3, c, lookupCell);
-  return out;
+const HEADER = 16;
+
+/** The compact form stores each sample less its linear prediction from the two before it (smooth curves leave small numbers). */
+function predict(i: number, p1: number, p2: number): number {
+  return i === 0 ? 0 : i === 1 ? p1 : 2 * p1 - p2;
 }
 
-/** The table as bytes (layout in the header comment), for the cache file and the browser. */
-export function encodeUpsampleTable(table: UpsampleTable): Uint8Array {
-  const n = table.zNodes.length + table.coefficients.length;
-  const buf = new ArrayBuffer(12 + 4 * n);
-  const view = new DataView(buf);
-  for (let i = 0; i < 4; i++) view.setUint8(i, MAGIC.charCodeAt(i));
+function writeHeader(view: DataView, magic: string, table: UpsampleTable): number {
+  for (let i = 0; i < 4; i++) view.setUint8(i, magic.charCodeAt(i));
   view.setUint32(4, table.resolution, true);
   view.setUint32(8, table.version, true);
-  let o = 12;
+  view.setUint32(12, GRID_SIZE, true);
+  let o = HEADER;
   for (const v of table.zNodes) {
     view.setFloat32(o, v, true);
     o += 4;
   }
-  for (const v of table.coefficients) {
-    view.setFloat32(o, v, true);
-    o += 4;
+  return o;
+}
+
+/** The table as bytes, exact ("GSU2", layout in the header comment): the server's cache file. */
+export function encodeUpsampleTable(table: UpsampleTable): Uint8Array {
+  const buf = new ArrayBuffer(HEADER + 4 * table.zNodes.length + 4 * table.spectra.length);
+  const view = new DataView(buf);
+  const o = writeHeader(view, 'GSU2', table);
+  new Uint8Array(buf, o).set(new Uint8Array(table.spectra.buffer, table.spectra.byteOffset, table.spectra.byteLength));
+  return new Uint8Array(buf);
+}
+
+/** The table as compact bytes ("GSQ2": 1/65535 steps, second differences along wavelength), for the browser. */
+export function encodeUpsampleTableCompact(table: UpsampleTable): Uint8Array {
+  const n = table.spectra.length;
+  const buf = new ArrayBuffer(HEADER + 4 * table.zNodes.length + 2 * n);
+  const view = new DataView(buf);
+  let o = writeHeader(view, 'GSQ2', table);
+  for (let k = 0; k < n; k += GRID_SIZE) {
+    let p1 = 0;
+    let p2 = 0;
+    for (let i = 0; i < GRID_SIZE; i++, o += 2) {
+      const q = Math.round(Math.min(1, Math.max(0, table.spectra[k + i])) * 65535);
+      view.setUint16(o, (q - predict(i, p1, p2)) & 0xffff, true);
+      p2 = p1;
+      p1 = q;
+    }
   }
   return new Uint8Array(buf);
 }
 
-/** Reads bytes written by `encodeUpsampleTable`; throws on a wrong magic, size or version. */
+/** Reads bytes written by either encoder; throws on a wrong magic, size, grid or version. */
 export function decodeUpsampleTable(bytes: Uint8Array, expectVersion: number = UPSAMPLE_METHOD.version): UpsampleTable {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  if (bytes.byteLength < 12) throw new Error('upsample table: too short');
+  if (bytes.byteLength < HEADER) throw new Error('upsample table: too short');
   const magic = String.fromCharCode(view.getUint8(0), view.getUint8(1), view.getUint8(2), view.getUint8(3));
-  if (magic !== MAGIC) throw new Error('upsample table: wrong magic');
+  if (magic !== 'GSU2' && magic !== 'GSQ2') throw new Error('upsample table: wrong magic');
   const R = view.getUint32(4, true);
   const version = view.getUint32(8, true);
   if (version !== expectVersion) throw new Error(`upsample table: version ${version}, expected ${expectVersion}`);
-  const nz = R;
-  const nc = 3 * R * R * R * 3;
-  if (bytes.byteLength !== 12 + 4 * (nz + nc)) throw new Error('upsample table: wrong size');
-  const zNodes = new Float32Array(nz);
-  const coefficients = new Float32Array(nc);
-  let o = 12;
-  for (let i = 0; i < nz; i++, o += 4) zNodes[i] = view.getFloat32(o, true);
-  for (let i = 0; i < nc; i++, o += 4) coefficients[i] = view.getFloat32(o, true);
-  return { resolution: R, version, zNodes, coefficients };
+  if (view.getUint32(12, true) !== GRID_SIZE) throw new Error('upsample table: another wavelength grid');
+  const n = 3 * R * R * R * GRID_SIZE;
+  const bytesPer = magic === 'GSU2' ? 4 : 2;
+  if (bytes.byteLength !== HEADER + 4 * R + bytesPer * n) throw new Error('upsample table: wrong size');
+  const zNodes = new Float32Array(R);
+  let o = HEADER;
+  for (let i = 0; i < R; i++, o += 4) zNodes[i] = view.getFloat32(o, true);
+  const spectra = new Float32Array(n);
+  if (magic === 'GSU2') {
+    spectra.set(new Float32Array(bytes.slice(o, o + 4 * n).buffer));
+  } else {
+    for (let k = 0; k < n; k += GRID_SIZE) {
+      let p1 = 0;
+      let p2 = 0;
+      for (let i = 0; i < GRID_SIZE; i++, o += 2) {
+        const q = (predict(i, p1, p2) + view.getUint16(o, true)) & 0xffff;
+        spectra[k + i] = q / 65535;
+        p2 = p1;
+        p1 = q;
+      }
+    }
+  }
+  return { resolution: R, version, zNodes, spectra };
 }

@@ -60,8 +60,13 @@ describe('the demo boards', () => {
       const a = m.look.tones.find((x) => x.swatchId === m.a)!;
       const b = m.look.tones.find((x) => x.swatchId === m.b)!;
       expect(Math.abs(Math.abs(a.stops - b.stops) - m.stopsApart)).toBeLessThan(TOL);
-      expect(m.stopsApart).toBeLessThanOrEqual(MERGE_STOPS);
       expect(m.deltaE).toBeGreaterThan(MERGE_DELTA_E);
+      // the plausible ranges come within the threshold (possible) or lie within it entirely (certain)
+      const [lo, hi] = [Math.min(a.range.plausible[0], b.range.plausible[0]), Math.max(a.range.plausible[1], b.range.plausible[1])];
+      const gap = Math.max(a.range.plausible[0], b.range.plausible[0]) - Math.min(a.range.plausible[1], b.range.plausible[1]);
+      expect(gap).toBeLessThanOrEqual(MERGE_STOPS + TOL);
+      expect(m.certainty).toBe(hi - lo <= MERGE_STOPS ? 'certain' : 'possible');
+      if (m.certainty === 'certain') expect(m.stopsApart).toBeLessThanOrEqual(MERGE_STOPS);
     }
   });
 

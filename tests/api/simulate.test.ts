@@ -32,7 +32,7 @@ describe('POST /api/simulate', () => {
     expect(r.body.filterFactor).toBeCloseTo(2 ** r.body.filterStops, 9);
     expect(r.body.opaque).toBe(false);
     const [grey, lips] = r.body.swatches;
-    expect(Object.keys(grey).sort()).toEqual(['estimated', 'exposure', 'eyeStops', 'lab', 'name', 'shift', 'stops', 'xyz', 'zone']);
+    expect(Object.keys(grey).sort()).toEqual(['estimated', 'exposure', 'eyeStops', 'lab', 'name', 'range', 'shift', 'stops', 'xyz', 'zone']);
     expect(grey.name).toBe('grey card');
     expect(Math.abs(grey.stops)).toBeLessThanOrEqual(TOL);
     expect(Math.abs(grey.zone - 5)).toBeLessThanOrEqual(TOL);

@@ -5,7 +5,7 @@ import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
 import { AppError, InvalidError } from '../../errors';
 import { handle, productionRoute, pid, idParam } from '../route-registry';
-import { photoLookRequestSchema, photoUpdateSchema, photoUploadFieldsSchema, renderRequestSchema } from '../../../shared/schemas/photo';
+import { photoLookRequestSchema, uncertaintyRequestSchema, photoUpdateSchema, photoUploadFieldsSchema, renderRequestSchema } from '../../../shared/schemas/photo';
 import { PhotosService } from './photos.service';
 
 const services = new WeakMap<AppContext, PhotosService>();
@@ -89,6 +89,14 @@ export function photosRouter(ctx: AppContext): Router {
     const f = await svc.renderFile(pid(req), photoId(req), String(req.params.renderKey));
     res.setHeader('Cache-Control', 'private, max-age=86400, immutable');
     res.attachment(f.downloadName).type(f.type).sendFile(f.path);
+  }));
+  productionRoute(r, ctx, 'post', '/photo-uncertainty', 'viewer', validate(uncertaintyRequestSchema), handle(async (req, res) => {
+    const s = await svc.startUncertainty(pid(req), req.body);
+    res.status(s.status === 'done' ? 200 : 202).json({ uncertainty: s });
+  }));
+  productionRoute(r, ctx, 'get', '/photo-uncertainty/:key', 'viewer', handle(async (req, res) => {
+    res.setHeader('Cache-Control', 'no-store');
+    res.json({ uncertainty: svc.uncertaintyStatus(pid(req), String(req.params.key)) });
   }));
   productionRoute(r, ctx, 'post', '/photo-looks', 'viewer', validate(photoLookRequestSchema), handle(async (req, res) => {
     res.json({ look: await svc.photoLook(pid(req), req.body) });

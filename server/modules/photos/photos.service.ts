@@ -6,10 +6,11 @@ import type { Membership } from '../../db/entities/membership.entity';
 import { NotFoundError } from '../../errors';
 import { assertDepartmentAccess } from '../../policy/department-access';
 import type { LookDefinition } from '../../../shared/schemas/look';
-import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, type PhotoLookView, type PhotoView, type RenderFormat, type RenderStatus } from '../../../shared/schemas/photo';
+import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, type PhotoLookView, type PhotoView, type RenderFormat, type RenderStatus, type UncertaintyStatus } from '../../../shared/schemas/photo';
 import { ingestPhoto } from './photo-ingest';
 import { PhotoStorage, removeQuietly } from './photo-storage';
 import { RenderJobs } from './render-jobs';
+import { UncertaintyJobs } from './uncertainty-jobs';
 import { getUpsampleTable } from '../../services/upsample-table';
 import { photoLookView, resolvePhotoLook } from './photo-looks';
 
@@ -60,6 +61,7 @@ export function nameFromFile(original: string | undefined): string {
 export class PhotosService {
   readonly storage: PhotoStorage;
   readonly renders: RenderJobs;
+  readonly uncertainty: UncertaintyJobs;
 
   constructor(
     private ds: DataSource,
@@ -68,6 +70,7 @@ export class PhotosService {
   ) {
     this.storage = new PhotoStorage(dataDir);
     this.renders = new RenderJobs(this.storage, () => getUpsampleTable(dataDir));
+    this.uncertainty = new UncertaintyJobs(() => getUpsampleTable(dataDir));
   }
 
   async list(productionId: number): Promise<PhotoView[]> {
@@ -163,6 +166,20 @@ export class PhotosService {
 
   private withUrl(productionId: number, photoId: number, s: RenderStatus): RenderStatus {
     return s.status === 'done' ? { ...s, url: `/api/productions/${productionId}/photos/${photoId}/renders/${s.key}/file` } : s;
+  }
+
+  /** Starts (or finds) the uncertainty table of a look for the overlay. */
+  async startUncertainty(productionId: number, choice: { lookId?: number; look?: LookDefinition }): Promise<UncertaintyStatus> {
+    const look = await resolvePhotoLook(this.ds.manager, productionId, choice, await getUpsampleTable(this.dataDir));
+    const key = look.contentHash.slice(0, 32);
+    return { ...this.uncertainty.request(`${productionId}:${key}`, look.composed.path), key };
+  }
+
+  /** An uncertainty table's status (and, once done, the table), within the production that asked for it. */
+  uncertaintyStatus(productionId: number, key: string): UncertaintyStatus {
+    const s = /^[0-9a-f]{32}$/.test(key) ? this.uncertainty.status(`${productionId}:${key}`) : null;
+    if (!s) throw new NotFoundError('That uncertainty table');
+    return { ...s, key };
   }
 
   /** Starts (or finds in the cache) a full-resolution render. */

@@ -18,6 +18,13 @@ const PAGE = { size: 'A4' as const, margin: 42 };
 const ZONE_GREYS = ['#000000', '#1b1b1b', '#303030', '#474747', '#5e5e5e', '#777777', '#919191', '#ababab', '#c6c6c6', '#e2e2e2', '#ffffff'];
 
 /** Inter's WOFF files from @fontsource/inter, or null when they are not installed. */
+/** A plausible range as zones, e.g. "III–V" (one numeral when it stays within one zone). */
+function rangeWords(r: [number, number]): string {
+  const lo = ZONE_NUMERALS[Math.round(Math.min(10, Math.max(0, 5 + r[0])))];
+  const hi = ZONE_NUMERALS[Math.round(Math.min(10, Math.max(0, 5 + r[1])))];
+  return lo === hi ? lo : `${lo}–${hi}`;
+}
+
 function interFiles(): { regular: string; semibold: string } | null {
   try {
     const dir = path.join(path.dirname(createRequire(import.meta.url).resolve('@fontsource/inter/package.json')), 'files');
@@ -204,15 +211,21 @@ export function renderSheetPdf(sheet: ExposureSheet): Promise<Buffer> {
   });
   doc.rect(L, y, W, 14).lineWidth(0.5).strokeColor(C.line).stroke();
   y += 14;
+  const atZone = (zone: number) => L + Math.min(10.98, Math.max(0, zone + 0.5)) * zw;
   for (const s of sheet.swatches) {
-    const x = L + Math.min(10.98, Math.max(0, s.zone + 0.5)) * zw;
+    // the plausible range as a bar, the possible range as a fainter line, the estimate as a mark
+    const [plLo, plHi] = s.range.plausible.map((v) => atZone(5 + v));
+    const [poLo, poHi] = s.range.possible.map((v) => atZone(5 + v));
+    if (poHi - poLo > 0.5) doc.rect(poLo, y + 8.5, poHi - poLo, 1).fill(C.line);
+    if (plHi - plLo > 0.5) doc.rect(plLo, y + 7.5, plHi - plLo, 3).fill(C.soft);
+    const x = atZone(s.zone);
     doc.polygon([x, y + 1], [x - 3, y + 6], [x + 3, y + 6]).fill(s.lost || s.blown ? C.warn : C.ink);
   }
-  y += 12;
+  y += 14;
   if (sheet.swatches.length) {
     const cols: Cell[] = [
-      { text: 'Colour · grey', w: 56 }, { text: 'Swatch', w: W - 56 - 128 - 54 - 46 - 46 - 62 }, { text: 'Board', w: 128 }, { text: 'Zone', w: 54, align: 'right' },
-      { text: 'Stops', w: 46, align: 'right' }, { text: 'Shift', w: 46, align: 'right' }, { text: 'Note', w: 62 },
+      { text: 'Colour · grey', w: 56 }, { text: 'Swatch', w: W - 56 - 100 - 54 - 46 - 46 - 62 - 62 }, { text: 'Board', w: 100 }, { text: 'Zone', w: 54, align: 'right' },
+      { text: 'Stops', w: 46, align: 'right' }, { text: 'Could read', w: 62, align: 'right' }, { text: 'Shift', w: 46, align: 'right' }, { text: 'Note', w: 62 },
     ];
     const header = () => headRow(cols);
     header();
@@ -229,8 +242,9 @@ export function renderSheetPdf(sheet: ExposureSheet): Promise<Buffer> {
         { ...cols[2], text: s.board, color: C.soft },
         { ...cols[3], text: `${s.numeral} (${s.zone.toFixed(1)})` },
         { ...cols[4], text: signed1(s.stops) },
-        { ...cols[5], text: signed1(s.shift), color: Math.abs(s.shift) >= 1 ? C.warn : C.ink },
-        { ...cols[6], text: s.lost ? 'texture lost' : s.blown ? 'blown' : '', color: C.warn },
+        { ...cols[5], text: rangeWords(s.range.plausible), color: s.range.plausible[1] - s.range.plausible[0] >= 1 ? C.warn : C.soft },
+        { ...cols[6], text: signed1(s.shift), color: Math.abs(s.shift) >= 1 ? C.warn : C.ink },
+        { ...cols[7], text: s.lost ? 'texture lost' : s.blown ? 'blown' : s.range.plausible[1] - s.range.plausible[0] >= 1 ? 'measure it' : '', color: C.warn },
       ] as Cell[]).map((c) => ({ ...c, size: 8.5 })), L, 2.5);
       const hh = y - y0 - 4;
       doc.rect(L + 3, y0 + 2, 24, hh).fill(s.hex);
@@ -238,7 +252,7 @@ export function renderSheetPdf(sheet: ExposureSheet): Promise<Buffer> {
       doc.rect(L + 27, y0 + 2, 24, hh).fill(`#${g}${g}${g}`);
       doc.rect(L + 3, y0 + 2, 48, hh).lineWidth(0.4).strokeColor(C.line).stroke();
     }
-    font(false, 7.5, C.mute).text(t(`Stops from middle grey on the medium with the key placed; shift = medium minus eye (+ reads lighter than it looks).${sheet.swatchesLeftOff ? ` ${sheet.swatchesLeftOff} more swatches are on the boards.` : ''}`), L, y + 3, opts({ width: W }));
+    font(false, 7.5, C.mute).text(t(`Stops from middle grey on the medium with the key placed; shift = medium minus eye (+ reads lighter than it looks). "Could read": the zones a colour given only as a value could land on through this look with a realistic spectrum (bar on the ruler; the faint line is every possible spectrum); measure the swatch to be sure.${sheet.swatchesLeftOff ? ` ${sheet.swatchesLeftOff} more swatches are on the boards.` : ''}`), L, y + 3, opts({ width: W }));
     y = doc.y + 10;
   } else {
     font(false, 8.5, C.mute).text('No board shows this look yet: add it to a board to list its swatches here.', L, y, opts({ width: W }));

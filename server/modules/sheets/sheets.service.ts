@@ -166,6 +166,7 @@ export class SheetsService {
       lost: t.lost,
       blown: t.blown,
       key: t.swatchId === tone.keySwatchId,
+      range: t.range,
     }));
     out.sort((a, b) => Number(b.key) - Number(a.key) || b.stops - a.stops);
     return { swatches: out.slice(0, SHEET_MAX_SWATCHES), left: Math.max(0, out.length - SHEET_MAX_SWATCHES), boards: using.map((b) => b.name) };

@@ -5,7 +5,7 @@ import { validate } from '../../middleware/validate';
 import { simulateRequestSchema, type SimulateRequest } from '../../../shared/schemas/simulate';
 import { UPSAMPLE_METHOD } from '../../../shared/spectral/upsample-table';
 import { handle } from '../route-registry';
-import { libraryListing, runSimulation, upsampleTableBytes } from './simulate.service';
+import { libraryListing, runSimulation, upsampleTableGzip } from './simulate.service';
 
 /**
  * Signed-in only (docs/api-simulate.md):
@@ -31,11 +31,12 @@ export function simulateRouter(ctx: AppContext): Router {
     '/library/upsample-table',
     requireAuth,
     handle(async (_req, res) => {
-      const bytes = await upsampleTableBytes(ctx.env.dataDir);
+      const gz = await upsampleTableGzip(ctx.env.dataDir);
       res.set('Content-Type', 'application/octet-stream');
+      res.set('Content-Encoding', 'gzip');
       res.set('Cache-Control', 'private, max-age=86400');
       res.set('ETag', `"upsample-r${UPSAMPLE_METHOD.resolution}-v${UPSAMPLE_METHOD.version}"`);
-      res.send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+      res.send(gz);
     }),
   );
   return r;

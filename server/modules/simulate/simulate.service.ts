@@ -10,7 +10,7 @@ import { GRID_SHAPE } from '../../../shared/spectral/policy';
 import type { Spectrum } from '../../../shared/spectral/spectrum';
 import { UPSAMPLE_METHOD } from '../../../shared/spectral/upsample-table';
 import { InvalidError } from '../../errors';
-import { getUpsampleTable, getUpsampleTableBytes } from '../../services/upsample-table';
+import { getUpsampleTable, getUpsampleTableGzip } from '../../services/upsample-table';
 
 const round = (s: Spectrum) => Array.from(s.values, (v) => Number(v.toPrecision(6)));
 
@@ -42,7 +42,7 @@ export async function runSimulation(dataDir: string, request: SimulateRequest): 
   }
 }
 
-/** The upsampling table's bytes for the browser. */
-export function upsampleTableBytes(dataDir: string): Promise<Uint8Array> {
-  return getUpsampleTableBytes(dataDir);
+/** The estimate's table for the browser: its compact form, gzip-compressed. */
+export function upsampleTableGzip(dataDir: string): Promise<Buffer> {
+  return getUpsampleTableGzip(dataDir);
 }

@@ -11,6 +11,7 @@ import { toneThrough, type ComposedLook } from '../../../shared/look/compose-loo
 import type { LookTones, Merge, SwatchTone } from '../../../shared/schemas/board';
 import type { Spectrum } from '../../../shared/spectral/spectrum';
 import type { ResolvedLook } from './look-resolve';
+import { cachedStopsRange } from './tone-ranges';
 
 export interface ToneSwatch {
   id: number;
@@ -32,29 +33,41 @@ useMode(modeLab65);
 const ciede2000 = differenceCiede2000();
 const asLab = (l: [number, number, number]) => ({ mode: 'lab65' as const, l: l[0], a: l[1], b: l[2] });
 
-/** Pairs that merge, found by walking the swatches in order of stops (only near neighbours are compared). */
+/**
+ * Pairs that merge: two swatches more than `mergeDeltaE` apart to the eye whose plausible ranges come
+ * within `mergeStops` of each other (`possible`), or lie within it entirely (`certain`). Walks the swatches
+ * in order of their ranges' low ends, comparing only those that can still come near.
+ */
 export function findMerges(tones: SwatchTone[], mergeStops: number, mergeDeltaE: number): Merge[] {
-  const order = [...tones].sort((a, b) => a.stops - b.stops);
+  const order = [...tones].sort((a, b) => a.range.plausible[0] - b.range.plausible[0] || a.stops - b.stops);
   const out: Merge[] = [];
   for (let i = 0; i < order.length; i++) {
-    for (let j = i + 1; j < order.length && order[j].stops - order[i].stops <= mergeStops; j++) {
-      const a = order[i];
+    const a = order[i];
+    const [aLo, aHi] = a.range.plausible;
+    for (let j = i + 1; j < order.length && order[j].range.plausible[0] - aHi <= mergeStops; j++) {
       const b = order[j];
+      const [bLo, bHi] = b.range.plausible;
       const deltaE = ciede2000(asLab(a.lab), asLab(b.lab));
       if (deltaE > mergeDeltaE) {
         const [x, y] = a.swatchId < b.swatchId ? [a, b] : [b, a];
-        out.push({ a: x.swatchId, b: y.swatchId, stopsApart: Math.abs(a.stops - b.stops), deltaE });
+        const certain = Math.max(aHi, bHi) - Math.min(aLo, bLo) <= mergeStops;
+        out.push({ a: x.swatchId, b: y.swatchId, stopsApart: Math.abs(a.stops - b.stops), deltaE, certainty: certain ? 'certain' : 'possible' });
       }
     }
   }
-  return out.sort((m, n) => m.stopsApart - n.stopsApart);
+  return out.sort((m, n) => Number(n.certainty === 'certain') - Number(m.certainty === 'certain') || m.stopsApart - n.stopsApart);
 }
 
-/** Every swatch through one look: placed on the zones, rendered to a grey, with merges. */
+/** Every swatch through one look: placed on the zones, rendered to a grey, with its range and the merges. */
 export function lookTones(look: ToneLook, swatches: ToneSwatch[], mergeStops: number, mergeDeltaE: number): LookTones {
   const resolved: ResolvedSwatch[] = swatches.map((s) => ({ name: s.name, reflectance: s.reflectance, estimated: s.estimated }));
-  const sim = simulateSwatches(look.composed.path, resolved);
-  const tones: SwatchTone[] = sim.swatches.map((r, i) => ({ swatchId: swatches[i].id, ...toneThrough(look.composed, r.stops, r.eyeStops), lab: r.lab }));
+  const path = look.composed.path;
+  const sim = simulateSwatches(path, resolved);
+  const tones: SwatchTone[] = sim.swatches.map((r, i) => ({
+    swatchId: swatches[i].id,
+    ...toneThrough(look.composed, r.stops, r.eyeStops, cachedStopsRange(path, resolved[i], r.exposure)),
+    lab: r.lab,
+  }));
   return {
     lookId: look.id,
     lookName: look.name,

@@ -1,23 +1,22 @@
 /**
- * Round trip of the spectral upsampling (Jakob & Hanika 2019, Computer Graphics Forum 38(2)):
+ * Round trip of the colour estimate (LHTSS, Burns 2020, Color Research & Application 45(1), tabulated):
  * sRGB colour → estimated reflectance → XYZ under CIE D65 → sRGB, scored with culori 4.0.2's
  * CIEDE2000. Over a 16³ grid of encoded sRGB values plus primaries, secondaries and 33 greys.
  */
 import { differenceCiede2000 } from 'culori';
 import { describe, expect, it } from 'vitest';
-import { srgbToLinear, type Rgb3 } from '../../../shared/spectral/colour';
+import type { Rgb3 } from '../../../shared/spectral/colour';
 import { reflectanceFromSrgb } from '../../../shared/spectral/estimate';
 import { xyzOfReflectance } from '../../../shared/spectral/integrate';
 import { cieIlluminant } from '../../../shared/spectral/lights';
-import { blendedReflectance } from '../../../shared/spectral/node-spectra';
 import type { Spectrum } from '../../../shared/spectral/spectrum';
 import { upsampleTable } from '../../unit/spectral/fixtures';
 
-// Issue requirement (the method's published accuracy is of this order):
+// The product's requirement for the estimate (issue "How sure is a grey?"): the round trip stays exact.
 /** mean ΔE00 over the set */
-const MAX_MEAN_DE00 = 0.02;
+const MAX_MEAN_DE00 = 0.01;
 /** largest ΔE00 in the set */
-const MAX_DE00 = 0.2;
+const MAX_DE00 = 0.05;
 /** the set must hold at least this many colours */
 const MIN_COLOURS = 4000;
 
@@ -53,17 +52,11 @@ describe(`upsampling round trip over ${colours.length} sRGB colours (ΔE00, culo
 
   it(`holds at least ${MIN_COLOURS} colours`, () => expect(colours.length).toBeGreaterThanOrEqual(MIN_COLOURS));
 
-  it('single colours (table + Gauss–Newton refinement): mean < 0.02, max < 0.2', () => {
+  it('every colour (the blend of the table’s node spectra, as swatches and photo pixels get it): mean < 0.01, max < 0.05', () => {
     const s = score((c) => reflectanceFromSrgb(c, table));
     console.info(`round trip, single colours: mean ΔE00 ${s.mean.toExponential(3)}, max ${s.max.toExponential(3)} at sRGB ${s.worst.map((v) => v.toFixed(3)).join(',')}`);
     expect(s.mean).toBeLessThan(MAX_MEAN_DE00);
     expect(s.max).toBeLessThan(MAX_DE00);
   });
 
-  it('the photo LUT path (blend of the table cell’s corner spectra): mean < 0.02, max < 0.2', () => {
-    const s = score((c) => blendedReflectance(table, srgbToLinear(c)));
-    console.info(`round trip, LUT path: mean ΔE00 ${s.mean.toExponential(3)}, max ${s.max.toExponential(3)} at sRGB ${s.worst.map((v) => v.toFixed(3)).join(',')}`);
-    expect(s.mean).toBeLessThan(MAX_MEAN_DE00);
-    expect(s.max).toBeLessThan(MAX_DE00);
-  });
 });

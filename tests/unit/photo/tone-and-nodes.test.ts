@@ -4,7 +4,7 @@ import { blendedReflectance, nodeExposures, nodeReflectances } from '../../../sh
 import { composeLook, lookFingerprint, type LookSpectra } from '../../../shared/look/compose-look';
 import { buildTonePipeline } from '../../../shared/tone/tone-pipeline';
 import { resolveFilter, resolveLight, resolveMedium, resolveLightPath, simulateSwatches } from '../../../shared/spectral/compute';
-import { sigmoidReflectance } from '../../../shared/spectral/upsample';
+import { makeSpectrum } from '../../../shared/spectral/spectrum';
 import { keyOffsetStops } from '../../../shared/tone/zones';
 import { constantSpectrum } from '../../../shared/spectral/spectrum';
 import { upsampleTable } from '../spectral/fixtures';
@@ -34,15 +34,15 @@ describe('the tabulated tone curve', () => {
 });
 
 describe('node spectra kept for many looks', () => {
-  it('are the model spectra of the table’s coefficients (float32), and give their exposures', () => {
+  it('are the table’s node spectra, and give their exposures', () => {
     const table = upsampleTable();
     const lightPath = resolveLightPath({ light: { id: 'd65' }, filters: [{ id: 'orange-550' }], medium: { id: 'orthochromatic' } });
     const refl = nodeReflectances(table);
     expect(nodeReflectances(table)).toBe(refl); // computed once per table
     const m = nodeExposures(refl, lightPath.mediumWeights);
-    const n = table.coefficients.length / 3;
+    const n = table.spectra.length / 81;
     for (let k = 0; k < n; k += 997) {
-      const rho = sigmoidReflectance(Array.from(table.coefficients.subarray(3 * k, 3 * k + 3)));
+      const rho = makeSpectrum(table.spectra.subarray(81 * k, 81 * k + 81));
       const direct = simulateSwatches(lightPath, [{ name: 'node', reflectance: rho, estimated: true }]).swatches[0].exposure;
       expect(Math.abs(m[k] - direct)).toBeLessThan(TOL * Math.max(direct, 1e-3));
     }

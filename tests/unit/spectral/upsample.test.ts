@@ -6,54 +6,66 @@ import { SpectralInputError } from '../../../shared/spectral/errors';
 import { cieIlluminant } from '../../../shared/spectral/lights';
 import { blendedReflectance } from '../../../shared/spectral/node-spectra';
 import { eyeMedium } from '../../../shared/spectral/media';
-import { fitCoefficients, sigmoid, xyzOfCoefficients } from '../../../shared/spectral/upsample';
-import { decodeUpsampleTable, encodeUpsampleTable, lookupCoefficients, UPSAMPLE_METHOD } from '../../../shared/spectral/upsample-table';
+import { lhtss } from '../../../shared/spectral/lhtss';
+import { decodeUpsampleTable, encodeUpsampleTable, encodeUpsampleTableCompact, estimateNode, estimateRows, UPSAMPLE_METHOD } from '../../../shared/spectral/upsample-table';
 import { upsampleTable } from './fixtures';
 
 /** Default tolerance of this file. */
 const TOL = 1e-6;
 
-describe('the sigmoid-quadratic model (Jakob & Hanika 2019)', () => {
-  it('maps any polynomial value into (0, 1)', () => {
-    expect(sigmoid(0)).toBe(0.5);
-    expect(sigmoid(1e6)).toBeLessThanOrEqual(1);
-    expect(sigmoid(-1e6)).toBeGreaterThanOrEqual(0);
-  });
-  it('fits a colour to within 1e-6 ΔE*ab', () => {
+describe('the smoothest reflectance (LHTSS, Burns 2020)', () => {
+  const rows = estimateRows();
+  it('reproduces a colour to 1e-9 in XYZ with a reflectance strictly inside (0, 1)', () => {
     const target: [number, number, number] = [30, 25, 10];
-    const { coefficients, residual } = fitCoefficients(target);
-    expect(residual).toBeLessThan(TOL);
-    xyzOfCoefficients(coefficients).forEach((v, i) => expect(Math.abs(v - target[i])).toBeLessThan(1e-4));
+    const r = lhtss(rows, target);
+    expect(r.converged).toBe(true);
+    for (let k = 0; k < 3; k++) expect(Math.abs(rows[k].reduce((s, w, i) => s + w * r.reflectance[i], 0) - target[k])).toBeLessThan(1e-6);
+    for (const v of r.reflectance) expect(v > 0 && v < 1).toBe(true);
+  });
+  it('gives a grey a flat reflectance (the smoothest one there is)', () => {
+    const r = estimateNode(rows, [0.2, 0.2, 0.2]).reflectance;
+    const spread = Math.max(...r) - Math.min(...r);
+    expect(spread).toBeLessThan(2e-3); // the sRGB white and the integrated D65 white differ by about 1e-4 (README)
+  });
+  it('starts from a neighbour’s solution to the same answer', () => {
+    const a = lhtss(rows, [20, 30, 40]);
+    const b = lhtss(rows, [20.5, 30, 40.5], a.state);
+    const c = lhtss(rows, [20.5, 30, 40.5]);
+    for (let i = 0; i < c.reflectance.length; i++) expect(Math.abs(b.reflectance[i] - c.reflectance[i])).toBeLessThan(TOL);
   });
 });
 
-describe('the coefficient table', () => {
+describe('the table of node spectra', () => {
   const table = upsampleTable();
-  it('has the documented resolution and round-trips through its binary form', () => {
+  it('has the documented resolution and round-trips through both binary forms', () => {
     expect(table.resolution).toBe(UPSAMPLE_METHOD.resolution);
-    const bytes = encodeUpsampleTable(table);
-    expect(bytes.byteLength).toBe(12 + 4 * (table.resolution + 9 * table.resolution ** 3));
-    const back = decodeUpsampleTable(bytes);
-    expect(back.coefficients).toEqual(table.coefficients);
-    expect(back.zNodes).toEqual(table.zNodes);
+    const exact = decodeUpsampleTable(encodeUpsampleTable(table));
+    expect(exact.zNodes).toEqual(table.zNodes);
+    let same = true;
+    for (let i = 0; i < table.spectra.length; i++) if (exact.spectra[i] !== table.spectra[i]) same = false;
+    expect(same).toBe(true);
+    const compact = decodeUpsampleTable(encodeUpsampleTableCompact(table));
+    let worst = 0;
+    for (let i = 0; i < table.spectra.length; i++) worst = Math.max(worst, Math.abs(compact.spectra[i] - table.spectra[i]));
+    expect(worst).toBeLessThanOrEqual(0.5 / 65535 + 1e-9);
   });
   it('refuses damaged or stale bytes', () => {
-    const bytes = encodeUpsampleTable(table);
+    const bytes = encodeUpsampleTableCompact(table);
     expect(() => decodeUpsampleTable(bytes.slice(0, 100))).toThrow(/size/);
     expect(() => decodeUpsampleTable(bytes, UPSAMPLE_METHOD.version + 1)).toThrow(/version/);
     const bad = bytes.slice();
     bad[0] = 0;
     expect(() => decodeUpsampleTable(bad)).toThrow(/magic/);
   });
-  it('returns the node coefficients at a node colour', () => {
+  it('blends to the node’s own spectrum at a node colour', () => {
     const R = table.resolution;
     const zi = 20;
     const z = table.zNodes[zi];
     const xi = 5;
     const yi = 9;
-    const c = lookupCoefficients(table, z, (xi / (R - 1)) * z, (yi / (R - 1)) * z); // slice l = 0 (red largest)
-    const at = (((0 * R + zi) * R + yi) * R + xi) * 3;
-    for (let k = 0; k < 3; k++) expect(Math.abs(c[k] - table.coefficients[at + k])).toBeLessThanOrEqual(1e-4 * Math.max(1, Math.abs(c[k])));
+    const r = blendedReflectance(table, [z, (xi / (R - 1)) * z, (yi / (R - 1)) * z]).values; // slice l = 0 (red largest)
+    const at = (((0 * R + zi) * R + yi) * R + xi) * r.length;
+    for (let i = 0; i < r.length; i++) expect(Math.abs(r[i] - table.spectra[at + i])).toBeLessThan(TOL);
   });
 });
 

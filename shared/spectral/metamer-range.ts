@@ -1,0 +1,171 @@
+/**
+ * How sure is a grey: the range of medium exposures a colour can give when only its colour is known.
+ *
+ * A colour value fixes three numbers (CIE XYZ under D65), not a spectrum: every reflectance ρ with the
+ * same XYZ (a metamer) looks the same to the eye, yet a film or sensor behind filters can see them very
+ * differently. For a light path with medium weights w (m = Σ wᵢ·ρᵢ, integration.ts):
+ *
+ * - possible range: the least and greatest m over all reflectances 0 ≤ ρ(λ) ≤ 1 on the working grid
+ *   with the colour's XYZ under D65 (the eye's own integration rule) — two linear programs, solved by
+ *   the bounded simplex of bounded-simplex.ts. This is one channel of the metamer mismatch body:
+ *   A. D. Logvinenko, B. Funt and C. Godau, "Metamer mismatching", IEEE Transactions on Image Processing
+ *   23(1), 2014; one-channel extremes by linear programming as in P. Centore, "A linear programming
+ *   approach to metamer mismatching", Color Research & Application, 2017 (the method, here in our own code).
+ * - plausible range: the same programs over smooth reflectances only, as real surfaces are: ρ piecewise
+ *   linear between knots PLAUSIBLE_KNOT_NM apart, each knot's value in [0, 1] (so ρ stays in [0, 1]).
+ *   The knot spacing was chosen on published measured reflectances (README, "How sure is a grey"):
+ *   the truth of those surfaces falls inside it in most cases while it is clearly narrower than the
+ *   possible range. When no smooth reflectance has the colour (very saturated colours), the spacing is
+ *   halved until one does (ending at the grid itself, i.e. the possible range); `plausibleKnotNm` says
+ *   which spacing answered.
+ *
+ * Values are medium exposures m (relative to white, 0.18 = middle grey), the scale of `exposure` in
+ * compute.ts; callers turn them into stops.
+ */
+import { boundedExtremes, type BoundedSolution } from './bounded-simplex';
+import { GRID_NM } from './grid';
+import { tristimulusWeights } from './integrate';
+import { cieIlluminant } from './lights';
+import { GRID_SIZE, GRID_STEP_NM } from './policy';
+import type { Xyz } from './types';
+
+/** Knot spacing of the plausible (smooth) reflectances, nm. */
+export const PLAUSIBLE_KNOT_NM = 60;
+
+/** The exposure range of one colour through one light path. */
+export interface ExposureRange {
+  /** least and greatest m over every reflectance 0..1 with the colour (relative to white) */
+  possible: [number, number];
+  /** the same over smooth reflectances */
+  plausible: [number, number];
+  /** the knot spacing the plausible range was found with, nm (GRID_STEP_NM when only the possible set had the colour) */
+  plausibleKnotNm: number;
+  /** the reflectances on the grid that reach the possible range's ends (when asked for) */
+  extremes?: { low: Float64Array; high: Float64Array };
+}
+
+// The colour constraints: XYZ under D65 with the eye's integration weights (rows X, Y, Z over the grid).
+const D65 = tristimulusWeights(cieIlluminant('D65'));
+const EYE_ROWS = new Float64Array(3 * GRID_SIZE);
+EYE_ROWS.set(D65.x, 0);
+EYE_ROWS.set(D65.y, GRID_SIZE);
+EYE_ROWS.set(D65.z, 2 * GRID_SIZE);
+
+/** XYZ under D65 (Y = 100 for the perfect white) of a reflectance on the grid: the colour a range is for. */
+export function xyzD65(reflectance: ArrayLike<number>): Xyz {
+  let x = 0;
+  let y = 0;
+  let z = 0;
+  for (let i = 0; i < GRID_SIZE; i++) {
+    x += reflectance[i] * D65.x[i];
+    y += reflectance[i] * D65.y[i];
+    z += reflectance[i] * D65.z[i];
+  }
+  return [x, y, z];
+}
+
+/** A smooth basis: hat functions on knots `knotNm` apart across the grid (grid × knots, row-major). */
+interface Basis {
+  knotNm: number;
+  knots: number;
+  /** GRID_SIZE × knots */
+  hat: Float64Array;
+  /** EYE_ROWS · hat, 3 × knots */
+  rows: Float64Array;
+}
+
+const bases = new Map<number, Basis>();
+function basis(knotNm: number): Basis {
+  let b = bases.get(knotNm);
+  if (b) return b;
+  const start = GRID_NM[0];
+  const end = GRID_NM[GRID_SIZE - 1];
+  const knots = Math.ceil((end - start) / knotNm - 1e-9) + 1;
+  const hat = new Float64Array(GRID_SIZE * knots);
+  for (let i = 0; i < GRID_SIZE; i++) {
+    for (let k = 0; k < knots; k++) {
+      const at = Math.min(end, start + k * knotNm);
+      const prev = k > 0 ? Math.min(end, start + (k - 1) * knotNm) : at;
+      const next = k < knots - 1 ? Math.min(end, start + (k + 1) * knotNm) : at;
+      const nm = GRID_NM[i];
+      let v = 0;
+      if (nm === at) v = 1;
+      else if (nm < at && nm > prev) v = (nm - prev) / (at - prev);
+      else if (nm > at && nm < next) v = (next - nm) / (next - at);
+      hat[i * knots + k] = v;
+    }
+  }
+  const rows = new Float64Array(3 * knots);
+  for (let r = 0; r < 3; r++) {
+    for (let k = 0; k < knots; k++) {
+      let s = 0;
+      for (let i = 0; i < GRID_SIZE; i++) s += EYE_ROWS[r * GRID_SIZE + i] * hat[i * knots + k];
+      rows[r * knots + k] = s;
+    }
+  }
+  b = { knotNm, knots, hat, rows };
+  bases.set(knotNm, b);
+  return b;
+}
+
+function project(b: Basis, weights: ArrayLike<number>): Float64Array {
+  const out = new Float64Array(b.knots);
+  for (let i = 0; i < GRID_SIZE; i++) {
+    const w = weights[i];
+    if (w === 0) continue;
+    for (let k = 0; k < b.knots; k++) out[k] += w * b.hat[i * b.knots + k];
+  }
+  return out;
+}
+
+const projected = new WeakMap<ArrayLike<number>, Map<number, Float64Array>>();
+function projectedWeights(b: Basis, weights: Float64Array): Float64Array {
+  let byKnot = projected.get(weights);
+  if (!byKnot) projected.set(weights, (byKnot = new Map()));
+  let p = byKnot.get(b.knotNm);
+  if (!p) byKnot.set(b.knotNm, (p = project(b, weights)));
+  return p;
+}
+
+function plausibleRangeSmooth(xyz: Xyz, weights: Float64Array): { range: [number, number]; knotNm: number } | null {
+  for (let knotNm = PLAUSIBLE_KNOT_NM; knotNm > GRID_STEP_NM; knotNm /= 2) {
+    const b = basis(knotNm);
+    const r = boundedExtremes({ a: b.rows, rows: 3, n: b.knots, b: xyz }, projectedWeights(b, weights));
+    if (r) return { range: [r.min.value, r.max.value], knotNm };
+  }
+  return null;
+}
+
+/** The plausible range alone (m, relative to white) and the knot spacing that answered; null when no reflectance has the colour. */
+export function plausibleRange(xyz: Xyz, weights: Float64Array): { range: [number, number]; knotNm: number } | null {
+  for (let knotNm = PLAUSIBLE_KNOT_NM; knotNm > GRID_STEP_NM; knotNm /= 2) {
+    const b = basis(knotNm);
+    const r = boundedExtremes({ a: b.rows, rows: 3, n: b.knots, b: xyz }, projectedWeights(b, weights));
+    if (r) return { range: [r.min.value, r.max.value], knotNm };
+  }
+  const r = boundedExtremes({ a: EYE_ROWS, rows: 3, n: GRID_SIZE, b: xyz }, weights);
+  return r ? { range: [r.min.value, r.max.value], knotNm: GRID_STEP_NM } : null;
+}
+
+/**
+ * The possible and plausible exposure ranges of the colour `xyz` (XYZ under D65, Y = 100 for white) through
+ * a light path with medium weights `weights` (m = Σ wᵢ·ρᵢ on the grid). Pass `extremes` to get the two
+ * reflectances reaching the possible range's ends. A colour no reflectance 0..1 can have (outside the
+ * object-colour solid) gets a zero-width range at `fallback` (the estimate's exposure), since there is
+ * nothing to range over.
+ */
+export function exposureRange(xyz: Xyz, weights: Float64Array, fallback: number, options: { extremes?: boolean } = {}): ExposureRange {
+  const r = boundedExtremes({ a: EYE_ROWS, rows: 3, n: GRID_SIZE, b: xyz }, weights);
+  if (!r) return { possible: [fallback, fallback], plausible: [fallback, fallback], plausibleKnotNm: GRID_STEP_NM };
+  const possible: [number, number] = [Math.min(r.min.value, fallback), Math.max(r.max.value, fallback)];
+  const p = plausibleRangeSmooth(xyz, weights);
+  // the smooth set lies inside the possible one; rounding aside, keep it so, and keep the estimate in both
+  const plausible: [number, number] = p
+    ? [Math.max(possible[0], Math.min(p.range[0], fallback)), Math.min(possible[1], Math.max(p.range[1], fallback))]
+    : possible;
+  const out: ExposureRange = { possible, plausible, plausibleKnotNm: p ? p.knotNm : GRID_STEP_NM };
+  if (options.extremes) out.extremes = { low: r.min.x, high: r.max.x };
+  return out;
+}
+
+export type { BoundedSolution };
