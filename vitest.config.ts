@@ -13,7 +13,7 @@ export default defineConfig({
       { oxc: decorators as never, test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', globalSetup: [upsampleTable] } },
       { oxc: decorators as never, test: { name: 'reference', include: ['tests/reference/**/*.test.ts'], environment: 'node', testTimeout: 60_000, globalSetup: [upsampleTable] } },
       { oxc: decorators as never, test: { name: 'api', include: ['tests/api/**/*.test.ts'], environment: 'node', globalSetup: [upsampleTable], testTimeout: 30_000, hookTimeout: 60_000 } },
-      { oxc: decorators as never, test: { name: 'e2e', include: ['tests/e2e/**/*.test.ts'], environment: 'node', testTimeout: 120_000, hookTimeout: 120_000, fileParallelism: false } },
+      { oxc: decorators as never, test: { name: 'e2e', include: ['tests/e2e/**/*.test.ts'], environment: 'node', globalSetup: [upsampleTable], testTimeout: 120_000, hookTimeout: 120_000, fileParallelism: false } },
     ],
   },
 });

@@ -2,8 +2,11 @@
  * Spectral engine figures (medians): the 33³ photo table of a look as the live preview builds it (the
  * look composed, the exposure of every node of the estimate's table, then 33³ nodes of stops), and
  * 1,000 colour swatches through
- * one light path (resolve: table lookup + Gauss–Newton refinement; then XYZ, L*a*b*, tones). Also the
+ * one light path (resolve: the blend of the estimate's table cell; then XYZ, L*a*b*, tones). Also the
  * one-off build of the upsampling table, which the server does once and caches.
+ * How sure is a grey (metamer-range.ts): `ranges_1000_ms`, the possible and plausible ranges of 1,000
+ * estimated sRGB colours through one light path (swatches resolved beforehand; target ≤ 300 ms), and
+ * `uncertainty_table_ms`, one look's 33³ photo uncertainty table (shared/photo/uncertainty-table.ts; target ≤ 3 s).
  */
 import { resolveFilter, resolveLight, resolveMedium, resolveLightPath, resolveSwatch, simulateSwatches } from '../shared/spectral/compute';
 import { composeLook } from '../shared/look/compose-look';
@@ -11,6 +14,7 @@ import { buildPhotoLut, photoToneModel } from '../shared/photo/look-photo-model'
 import { PREVIEW_LUT_SIZE } from '../shared/photo/exposure-lut';
 import { nodeReflectances } from '../shared/spectral/node-spectra';
 import { buildUpsampleTable } from '../shared/spectral/upsample-table';
+import { fillUncertaintyTable, UNCERTAINTY_TABLE_SIZE } from '../shared/photo/uncertainty-table';
 import { random } from '../tests/unit/spectral/fixtures';
 import { medianMs } from './lib';
 
@@ -38,4 +42,11 @@ export default async function run(record: (name: string, value: number, unit: st
     await medianMs(() => simulateSwatches(lightPath, sources.map((s) => resolveSwatch(s, table))), 9),
     'ms',
   );
+
+  const resolved = sources.map((s) => resolveSwatch(s, table));
+  record('ranges_1000_ms', await medianMs(() => simulateSwatches(lightPath, resolved, { ranges: true }), 5), 'ms');
+
+  const size = UNCERTAINTY_TABLE_SIZE;
+  const widths = new Float32Array(size ** 3);
+  record('uncertainty_table_ms', await medianMs(() => fillUncertaintyTable(widths, size, lightPath, table, 0, size ** 3), 3), 'ms');
 }

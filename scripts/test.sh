@@ -9,6 +9,7 @@ need=()
 [ -f /usr/share/color/argyll/ref/D50.sp ] || [ -d /usr/share/colord ] || dpkg -s colord-data >/dev/null 2>&1 || need+=(colord-data)
 dpkg -s colord-data >/dev/null 2>&1 || need+=(colord-data)
 /usr/bin/python3 -c 'import colormath' >/dev/null 2>&1 || need+=(python3-colormath)
+/usr/bin/python3 -c 'import scipy.optimize' >/dev/null 2>&1 || need+=(python3-scipy)
 command -v spec2cie >/dev/null 2>&1 || need+=(argyll)
 command -v pdftoppm >/dev/null 2>&1 || need+=(poppler-utils)
 if [ ${#need[@]} -gt 0 ]; then

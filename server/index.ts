@@ -1,5 +1,6 @@
 import { createApp } from './app';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './db/seed';
+import { getUpsampleTable } from './services/upsample-table';
 
 const started = Date.now();
 const { app, ctx, seeded } = await createApp();
@@ -11,6 +12,12 @@ const server = app.listen(ctx.env.port, (err?: Error) => {
     console.log(`Demo sign-ins, password "${DEMO_PASSWORD}":`);
     for (const a of DEMO_ACCOUNTS) console.log(`  ${a.email.padEnd(32)} ${a.note}`);
   }
+  // the colour estimate's table: read from DATA_DIR/cache, or built once (a few seconds) before the first board asks
+  const t0 = Date.now();
+  getUpsampleTable(ctx.env.dataDir).then(
+    () => console.log(`Colour estimate table ready (${Date.now() - t0} ms).`),
+    (e: unknown) => console.error('Could not prepare the colour estimate table:', e),
+  );
 });
 const stop = () => {
   server.close();

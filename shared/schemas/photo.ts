@@ -121,13 +121,13 @@ export interface RenderStatus {
   error: string | null;
 }
 
-/** POST …/photos/uncertainty: the look whose uncertainty overlay is wanted (a saved look or a definition). */
+/** POST …/photo-uncertainty: the look whose uncertainty overlay is wanted (a saved look or a definition). */
 export const uncertaintyRequestSchema = photoLookRequestSchema;
 
 /**
  * An uncertainty table for the photos page's overlay: per sRGB colour, how wide the plausible range of its
  * tone is through the look (stops). `widths` (size³ numbers, index (b·size + g)·size + r, node i at the
- * encoded value i / (size − 1)) arrives when `status` is done; poll GET …/photos/uncertainty/:key until then.
+ * encoded value i / (size − 1)) arrives when `status` is done; poll GET …/photo-uncertainty/:key until then.
  */
 export interface UncertaintyStatus {
   key: string;

@@ -108,6 +108,17 @@ function basis(knotNm: number): Basis {
   return b;
 }
 
+/**
+ * The plausible program's matrices for a knot spacing (nm), for checking the programs elsewhere (copies; the
+ * solver keeps its own): `hat` (GRID_SIZE × knots, row-major) turns knot values into a reflectance on the
+ * grid, ρ = hat · k; `rows` (3 × knots) = the D65 XYZ rows (`xyzD65`) times `hat`, so the smooth program is
+ * min / max (hatᵀ·w)ᵀk subject to rows · k = XYZ, 0 ≤ k ≤ 1.
+ */
+export function plausibleProgram(knotNm: number = PLAUSIBLE_KNOT_NM): { knotNm: number; knots: number; hat: Float64Array; rows: Float64Array } {
+  const b = basis(knotNm);
+  return { knotNm, knots: b.knots, hat: Float64Array.from(b.hat), rows: Float64Array.from(b.rows) };
+}
+
 function project(b: Basis, weights: ArrayLike<number>): Float64Array {
   const out = new Float64Array(b.knots);
   for (let i = 0; i < GRID_SIZE; i++) {

@@ -71,7 +71,8 @@ it('answers every production route right for every role, no session and non-memb
       if (roleAtLeast(role, r.role)) {
         if (res.status === 401 || (res.status === 403 && roleDenied(res.body)) || productionHidden(res.body))
           failures.push(`${label}: ${role} → ${res.status} ${JSON.stringify(res.body)}, expected to pass the role check`);
-        if (r.method === 'get' && !/:[A-Za-z]+Id/.test(r.path.replace(':productionId', '')) && res.status !== 200 && !r.path.includes('.'))
+        // a list (no path parameter after the production) must answer 200; an item of an unknown id or key may 404
+        if (r.method === 'get' && !/:[A-Za-z]+/.test(r.path.replace(':productionId', '')) && res.status !== 200 && !r.path.includes('.'))
           failures.push(`${label}: ${role} → ${res.status}, expected 200`);
       } else if (res.status !== 403 || !roleDenied(res.body)) failures.push(`${label}: ${role} → ${res.status}, expected 403`);
     }

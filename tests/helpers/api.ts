@@ -1,6 +1,5 @@
 import fs from 'node:fs';
-import { upsampleCacheFile } from '../../server/services/upsample-table';
-import { UPSAMPLE_TABLE_FILE_ENV } from '../setup/upsample-table-file';
+import { copyRunUpsampleTable } from '../setup/upsample-table-file';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
@@ -27,12 +26,7 @@ export interface TestApp extends GrisailleApp {
 export async function startTestApp(opts: { seed?: boolean; env?: Partial<Env> } = {}): Promise<TestApp> {
   process.env.NODE_ENV = 'test';
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'grisaille-test-'));
-  // the run's upsampling table (tests/setup), put where the server caches it, so no test file rebuilds it
-  const shared = process.env[UPSAMPLE_TABLE_FILE_ENV];
-  if (shared && fs.existsSync(shared)) {
-    fs.mkdirSync(path.dirname(upsampleCacheFile(dataDir)), { recursive: true });
-    fs.copyFileSync(shared, upsampleCacheFile(dataDir));
-  }
+  copyRunUpsampleTable(dataDir); // the run's table (tests/setup), so no test file rebuilds it
   const g = await createApp({ env: { dataDir, demo: true, nodeEnv: 'test', authRateLimit: 10_000, writeRateLimit: 100_000, publicUrl: 'http://localhost:5178', ...opts.env }, seed: opts.seed ?? true, serveClient: false });
   const prod = await g.ctx.ds.getRepository(Production).findOneBy({ name: DEMO_PRODUCTION_NAME });
   const app: Express = g.app;

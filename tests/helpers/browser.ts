@@ -5,6 +5,7 @@ import path from 'node:path';
 import net from 'node:net';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll } from 'vitest';
+import { copyRunUpsampleTable } from '../setup/upsample-table-file';
 
 /** Where browser tests save their screenshots (ignored by git). */
 export const SHOTS_DIR = path.resolve('test-output/screenshots');
@@ -32,6 +33,7 @@ export async function startServer(): Promise<RunningApp> {
   if (!fs.existsSync('dist/index.html')) throw new Error('dist/ is missing: run `npm run build` before the browser tests');
   const port = await freePort();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'grisaille-e2e-'));
+  copyRunUpsampleTable(dataDir);
   const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     env: { ...process.env, PORT: String(port), DATA_DIR: dataDir, NODE_ENV: 'test', AUTH_RATE_LIMIT: '10000', WRITE_RATE_LIMIT: '100000' },
     stdio: ['ignore', 'pipe', 'pipe'],

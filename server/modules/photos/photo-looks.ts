@@ -3,6 +3,7 @@
  * (LookSpectra), using the looks feature's resolver (production curves, library items, inline
  * sources, the key swatch); and the same as JSON for the browser's live preview.
  */
+import { InvalidError } from '../../errors';
 import { findInProduction } from '../../db/in-production';
 import crypto from 'node:crypto';
 import type { EntityManager } from 'typeorm';
@@ -37,7 +38,14 @@ export async function resolvePhotoLook(em: EntityManager, productionId: number, 
   } else {
     def = { ...choice.look!, id: 0, name: 'Unsaved look' };
   }
-  const [tl] = await prepareToneLooks(em, productionId, [def], table);
+  let tl: Awaited<ReturnType<typeof prepareToneLooks>>[number];
+  try {
+    [tl] = await prepareToneLooks(em, productionId, [def], table);
+  } catch (e) {
+    // an unsaved look's fields sit under `look` in the request
+    if (e instanceof InvalidError && choice.lookId === undefined && e.field) throw new InvalidError(e.message.replace(e.field, `look.${e.field}`), `look.${e.field}`);
+    throw e;
+  }
   const spectra = tl.composed.spectra;
   const contentHash = crypto.createHash('sha256').update(lookFingerprint(spectra)).digest('hex');
   return { spectra, composed: tl.composed, resolved: tl.resolved, definition: def, name: def.name, contentHash };
