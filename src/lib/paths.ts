@@ -93,6 +93,9 @@ export const apiPaths = {
         render: (key: string) => `${base}/photos/${id}/renders/${key}`,
       }),
       photoLooks: () => `${base}/photo-looks`,
+      /** POST: start (or find) a look's uncertainty table for the photos overlay; GET …/:key polls it */
+      photoUncertainty: () => `${base}/photo-uncertainty`,
+      photoUncertaintyStatus: (key: string) => `${base}/photo-uncertainty/${encodeURIComponent(key)}`,
     };
   },
 };

@@ -103,10 +103,38 @@ it('the costume member spots two fabrics that merge', async () => {
   await p.getByRole('heading', { name: 'Workshop wardrobe' }).waitFor();
   await p.getByTestId('merge').first().waitFor();
   expect(await p.getByTestId('merge').count()).toBeGreaterThan(0);
+  // how sure: each merge says whether it is certain ("merges") or only possible ("may merge"), certain first
+  const certainty = await p.getByTestId('merge').evaluateAll((els) => els.map((e) => e.getAttribute('data-certainty')));
+  expect(certainty.every((c) => c === 'certain' || c === 'possible')).toBe(true);
+  expect(certainty.indexOf('possible') === -1 || certainty.lastIndexOf('certain') < certainty.indexOf('possible')).toBe(true);
+  const words = await p.getByTestId('merge').allInnerTexts();
+  expect(words.every((w) => /^(MERGES|MAY MERGE)/i.test(w.trim()))).toBe(true);
+  expect(words.some((w) => /may merge/i.test(w))).toBe(true);
+  // range bars on the chips and on the ruler, the words of a possible merge on a chip, and what to measure first
+  expect(await p.getByTestId('split-chip').first().getByTestId('range-bar').count()).toBe(1);
+  expect(await p.getByTestId('ruler-range').count()).toBeGreaterThan(0);
+  expect(await p.locator('[data-testid="split-chip"][data-merge="possible"]').count()).toBeGreaterThan(0);
+  const first = p.getByTestId('measure-first');
+  await first.getByRole('heading', { name: 'Measure these first' }).waitFor();
+  expect(await first.getByRole('listitem').count()).toBeGreaterThan(0);
+  expect(await first.getByRole('listitem').first().innerText()).toMatch(/\d\.\d st/);
   // keyboard: the ruler's pins take focus and name their swatch and zone
   await p.getByTestId('ruler-pin').first().focus();
-  expect(await p.evaluate(() => document.activeElement?.getAttribute('aria-label'))).toMatch(/zone/);
+  expect(await p.evaluate(() => document.activeElement?.getAttribute('aria-label'))).toMatch(/zone .*could read zone|measured spectrum/);
   await shot(p, 'board-04-costume-merges');
+  await p.getByRole('button', { name: 'Table' }).click();
+  await p.getByTestId('row-range').first().waitFor();
+  expect(await p.getByTestId('row-range').count()).toBeGreaterThan(0);
+  await shot(p, 'board-05-costume-table-ranges');
+  // the swatch page says it in words
+  await p.goto(`${env.app.url}/p/${pid}/swatches`);
+  await p.getByRole('button', { name: 'Burgundy silk', exact: true }).click();
+  await p.getByRole('heading', { name: 'Burgundy silk' }).waitFor();
+  await p.getByTestId('tone-sureness').first().waitFor();
+  expect((await p.getByTestId('tone-sureness').allInnerTexts()).join(' ')).toMatch(/(Could read anywhere from zone [0IVX]+ to [0IVX]+ through .+measure it to be sure|Reads zone [0IVX]+ through)/);
+  await shot(p, 'board-06-swatch-how-sure');
+  await p.getByRole('button', { name: 'Apron canvas (measured)', exact: true }).click();
+  await p.getByText('The spectrum is measured, so each tone is as computed', { exact: false }).waitFor();
   expect(errors).toEqual([]);
 });
 

@@ -99,6 +99,12 @@ it('the exposure sheet opens from the bench, prints, and downloads as a PDF that
   await page.getByTestId('sheet-ei-chain').getByText('Effective EI (this look’s light)').waitFor();
   await page.getByTestId('sheet-light-levels').getByText(/T2\.8 \(this look\)/).waitFor();
   await page.getByTestId('sheet-cautions').getByText(/licensed electricians and local codes/).waitFor();
+  // how sure each grey is: a "Could read" zone span per swatch and range bars on the zone ruler
+  await page.getByTestId('sheet-zone-ruler').waitFor();
+  const couldRead = await page.getByTestId('sheet-could-read').allInnerTexts();
+  expect(couldRead.length).toBeGreaterThan(0);
+  for (const c of couldRead) expect(c.trim()).toMatch(/^(measured|(0|I|II|III|IV|V|VI|VII|VIII|IX|X)(–(0|I|II|III|IV|V|VI|VII|VIII|IX|X))?)$/);
+  expect(couldRead.some((c) => c.includes('–'))).toBe(true);
   await shot(page, 'exposure-05-sheet');
   await page.emulateMedia({ media: 'print' });
   expect(await page.getByRole('button', { name: 'Print' }).isVisible()).toBe(false);

@@ -141,3 +141,38 @@ it('without WebGL2 the worker renders the preview', async () => {
   summary('light CCT, worker fallback', cct);
   await shot(page, 'photos-08-worker-fallback');
 });
+
+/** Waits for the uncertainty overlay to be built and drawn over the preview; answers the fraction shaded. */
+async function uncertaintyDrawn(page: Page): Promise<number> {
+  await page.getByRole('button', { name: 'Uncertainty' }).click();
+  await page.locator('[data-testid="uncertainty-layer"][data-drawn="true"]').waitFor({ timeout: 90_000 });
+  return Number(await page.getByTestId('uncertainty-layer').getAttribute('data-shaded'));
+}
+
+it('the uncertainty overlay builds its table with progress and shades the preview, on WebGL2 and on the worker', async () => {
+  const { page, errors, pid } = await openSignedIn(env, 'camera@demo.grisaille.test', { viewport: { width: 1440, height: 900 } });
+  const photos = await page.evaluate((p) => fetch(`/api/productions/${p}/photos`).then((r) => r.json()), pid);
+  const still = photos.photos.find((p: { name: string }) => p.name === DEMO_SCENES[1].name);
+  for (const renderer of ['gl', 'cpu'] as const) {
+    await page.goto(`${env.app.url}/p/${pid}/photos?photo=${still.id}${renderer === 'cpu' ? '&renderer=cpu' : ''}`);
+    await lutReady(page, renderer);
+    await page.getByLabel('Look', { exact: true }).selectOption({ label: 'Orthochromatic' });
+    await lutReady(page, renderer);
+    const shaded = await uncertaintyDrawn(page);
+    expect(shaded).toBeGreaterThan(0);
+    expect(shaded).toBeLessThan(1);
+    const legend = page.getByTestId('uncertainty-legend');
+    expect(await legend.innerText()).toMatch(/2 st/);
+    // some pixel of the layer carries the warning colour
+    const warm = await page.getByTestId('uncertainty-layer').evaluate((c: HTMLCanvasElement) => {
+      const d = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+      let n = 0;
+      for (let i = 3; i < d.length; i += 4) if (d[i] > 40) n++;
+      return n;
+    });
+    expect(warm).toBeGreaterThan(0);
+    await page.locator('canvas[data-renderer]').scrollIntoViewIfNeeded();
+    await shot(page, `photos-09-uncertainty-${renderer}`);
+  }
+  expect(errors).toEqual([]);
+});

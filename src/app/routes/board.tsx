@@ -14,7 +14,8 @@ import { BoardSettings } from '../../features/boards/components/board-settings';
 import { BoardChips } from '../../features/boards/components/board-chips';
 import { BoardSortControls } from '../../features/boards/components/board-sort';
 import { SwatchChooser } from '../../features/boards/components/swatch-chooser';
-import { boardFileName, mergeCount, settingsDirty } from '../../features/boards/lib/board-rows';
+import { boardFileName, measureFirst, mergeCount, settingsDirty } from '../../features/boards/lib/board-rows';
+import { MeasureFirstList } from '../../features/boards/components/measure-first';
 import { mayChangeDepartmentItem } from '../../../shared/policy/department';
 import { paths } from '../../lib/paths';
 
@@ -43,7 +44,7 @@ export default function BoardPage() {
     <>
       <PageHeader
         title={b.name}
-        subtitle={<>{b.department} board · {b.swatchIds.length} swatches · {merges ? <span className="font-medium text-warn">{merges} merge{merges > 1 ? 's' : ''} flagged</span> : 'no merges'}{b.notes && <> · {b.notes}</>}</>}
+        subtitle={<>{b.department} board · {b.swatchIds.length} swatches · {merges.certain ? <span className="font-medium text-warn">{merges.certain} merge{merges.certain > 1 ? 's' : ''} flagged</span> : 'no certain merges'}{merges.possible > 0 && <> · <span className="text-warn/80">{merges.possible} possible</span></>}{b.notes && <> · {b.notes}</>}</>}
         actions={<Link to={paths.production(pid).boards()} className="rounded-md px-3 py-1.5 text-sm text-ink-soft hover:bg-paper-sunk">All boards</Link>}
       />
       <Card className="mb-4">
@@ -64,6 +65,8 @@ export default function BoardPage() {
       {editSwatches && canEdit && (
         <SwatchChooser swatches={swatches.data?.swatches ?? []} chosen={b.swatchIds} onChange={(swatchIds) => update.mutate({ pid, id: b.id, swatchIds })} />
       )}
+
+      {data && shownLooks.length > 0 && <MeasureFirstList items={measureFirst(v.rows, shownLooks)} />}
 
       {!data && tones.isPending && <Spinner label="Computing tones…" />}
       {data && shownLooks.length === 0 && <p className="text-ink-mute">Choose at least one look to see this board through.</p>}

@@ -55,7 +55,7 @@ export default function LooksComparePage() {
           const look = looks.data?.looks.find((l) => l.id === id);
           const a = analyses[i]?.data?.analysis;
           const t = tones.data?.tones.looks.find((x) => x.lookId === id);
-          const names = (sid: number) => (t?.merges ?? []).filter((m) => m.a === sid || m.b === sid).map((m) => swatchById.get(m.a === sid ? m.b : m.a)?.name ?? '');
+          const names = (sid: number, certain = true) => (t?.merges ?? []).filter((m) => (m.a === sid || m.b === sid) && (m.certainty === 'certain') === certain).map((m) => swatchById.get(m.a === sid ? m.b : m.a)?.name ?? '');
           return (
             <Card key={id} className="min-w-0">
               <h2 className="mb-1"><Link to={paths.production(pid).bench(id)} className="hover:text-accent">{look?.name ?? `Look ${id}`}</Link></h2>
@@ -70,7 +70,7 @@ export default function LooksComparePage() {
                 <div className="mt-3 grid grid-cols-2 gap-2">
                   {[...t.tones].sort((x, y) => y.stops - x.stops).map((tone) => {
                     const s = swatchById.get(tone.swatchId);
-                    return s ? <SplitChip key={tone.swatchId} name={s.name} hex={s.hex} tone={tone} mergesWith={names(tone.swatchId)} size="sm" /> : null;
+                    return s ? <SplitChip key={tone.swatchId} name={s.name} hex={s.hex} tone={tone} mergesWith={names(tone.swatchId)} mayMergeWith={names(tone.swatchId, false)} size="sm" /> : null;
                   })}
                 </div>
               )}

@@ -69,7 +69,7 @@ export default function PhotosPage() {
             <Notice>No photos yet. {canUpload ? 'Upload one to start.' : 'A contributor can upload one.'}</Notice>
           ) : (
             <PhotoPreview pid={pid} photo={photo} look={look} looks={allLooks} loaded={session.loaded} timed={session.timed} error={session.error}
-              loading={!session.loaded && !session.loadError} renderer={renderer} view={view} onView={setView} rect={session.rect} onRect={session.setRect} />
+              loading={!session.loaded && !session.loadError} renderer={renderer} view={view} onView={setView} rect={session.rect} onRect={session.setRect} definition={session.definition} />
           )}
         </section>
 

@@ -1,27 +1,35 @@
 import type { SwatchTone } from '../../../shared/schemas/board';
 import { greyCss, hexLightness, inkOn, signedStops } from '../../lib/tone-format';
+import { isExact, rangeLabel, WIDE_WIDTH, widthOf, zoneSpanWords } from '../../lib/tone-range';
+import { RangeBar } from './range-bar';
 
 interface Props {
   name: string;
   hex: string;
   tone: SwatchTone;
-  /** names of the swatches this one merges with on this look */
+  /** names of the swatches this one merges with on this look, whatever their spectra */
   mergesWith?: string[];
+  /** names of the swatches it may merge with (some plausible spectra would merge them) */
+  mayMergeWith?: string[];
   estimated?: boolean;
   size?: 'md' | 'sm';
 }
 
 /** A swatch as a split chip: its colour to the eye beside its simulated grey, with zone, stops and shift. */
-export function SplitChip({ name, hex, tone, mergesWith = [], estimated, size = 'md' }: Props) {
+export function SplitChip({ name, hex, tone, mergesWith = [], mayMergeWith = [], estimated, size = 'md' }: Props) {
   const merged = mergesWith.length > 0;
+  const mayMerge = !merged && mayMergeWith.length > 0;
   const h = size === 'md' ? 'h-16' : 'h-11';
-  const label = `${name}: zone ${tone.numeral}, ${signedStops(tone.stops)} from middle grey, shift ${signedStops(tone.shift)}${merged ? `, merges with ${mergesWith.join(', ')}` : ''}${tone.lost ? ', shadow detail lost' : ''}${tone.blown ? ', highlight blown' : ''}`;
+  const exact = isExact(tone.range);
+  const wide = widthOf(tone.range.plausible) >= WIDE_WIDTH;
+  const label = `${name}: zone ${tone.numeral}, ${signedStops(tone.stops)} from middle grey, shift ${signedStops(tone.shift)}, ${rangeLabel(tone.range)}${merged ? `, merges with ${mergesWith.join(', ')}` : ''}${mayMergeWith.length ? `, may merge with ${mayMergeWith.join(', ')}` : ''}${tone.lost ? ', shadow detail lost' : ''}${tone.blown ? ', highlight blown' : ''}`;
   return (
     <figure
-      className={`overflow-hidden rounded-md border bg-paper-raised ${merged ? 'border-warn ring-2 ring-warn/40' : 'border-paper-line'}`}
+      className={`overflow-hidden rounded-md border bg-paper-raised ${merged ? 'border-warn ring-2 ring-warn/40' : mayMerge ? 'border-dashed border-warn/60' : 'border-paper-line'}`}
       aria-label={label}
       data-testid="split-chip"
       data-zone={tone.numeral}
+      data-merge={merged ? 'certain' : mayMerge ? 'possible' : undefined}
     >
       <div className={`flex ${h}`}>
         <div className="flex flex-1 items-end p-1" style={{ background: hex }} title={`${hex} to the eye`}>
@@ -39,9 +47,16 @@ export function SplitChip({ name, hex, tone, mergesWith = [], estimated, size = 
             shift {signedStops(tone.shift)}
           </span>
         </div>
-        {(merged || tone.lost || tone.blown || estimated) && (
+        <div className="mt-1 flex items-center gap-1.5">
+          <RangeBar range={tone.range} stops={tone.stops} className="flex-1" />
+          <span className={`shrink-0 text-[10px] tabular ${exact ? 'text-accent' : wide ? 'font-semibold text-warn' : 'text-ink-mute'}`} title={exact ? 'measured spectrum: the tone is as computed' : `could read zone ${zoneSpanWords(tone.range.plausible)}, ${widthOf(tone.range.plausible).toFixed(1)} st wide`}>
+            {exact ? 'measured' : zoneSpanWords(tone.range.plausible)}
+          </span>
+        </div>
+        {(merged || mayMergeWith.length > 0 || tone.lost || tone.blown || estimated) && (
           <div className="mt-0.5 flex flex-wrap gap-1 text-[10px]">
             {merged && <span className="rounded bg-warn-soft px-1 text-warn">merges with {mergesWith.join(', ')}</span>}
+            {mayMergeWith.length > 0 && <span className="rounded border border-dashed border-warn/50 px-1 text-warn/90">may merge with {mayMergeWith.join(', ')}</span>}
             {tone.lost && <span className="rounded bg-warn-soft px-1 text-warn">detail lost</span>}
             {tone.blown && <span className="rounded bg-warn-soft px-1 text-warn">blown</span>}
             {estimated && <span className="rounded bg-paper-sunk px-1 text-ink-mute">estimated spectrum</span>}

@@ -32,7 +32,8 @@ export function BenchBoard({ boards, boardId, onBoard, chips, stale, boardLink }
   boardLink: string | null;
 }) {
   const sorted = chips ? [...chips.tones.tones].sort((a, b) => b.stops - a.stops) : [];
-  const mergesOf = (id: number) => (chips?.tones.merges ?? []).filter((m) => m.a === id || m.b === id).map((m) => chips!.swatches.find((s) => s.id === (m.a === id ? m.b : m.a))?.name ?? '');
+  const mergesOf = (id: number, certain: boolean) =>
+    (chips?.tones.merges ?? []).filter((m) => (m.a === id || m.b === id) && (m.certainty === 'certain') === certain).map((m) => chips!.swatches.find((s) => s.id === (m.a === id ? m.b : m.a))?.name ?? '');
   return (
     <>
       <div className="mb-3 flex flex-wrap items-end justify-between gap-2">
@@ -49,7 +50,7 @@ export function BenchBoard({ boards, boardId, onBoard, chips, stale, boardLink }
         <div className={`grid grid-cols-2 gap-2 sm:grid-cols-3 xl:grid-cols-4 ${stale ? 'opacity-80' : ''}`} aria-busy={stale}>
           {sorted.map((t) => {
             const s = chips.swatches.find((x) => x.id === t.swatchId)!;
-            return <SplitChip key={t.swatchId} name={s.name} hex={s.hex} tone={t} mergesWith={mergesOf(t.swatchId)} estimated={s.estimated} size="sm" />;
+            return <SplitChip key={t.swatchId} name={s.name} hex={s.hex} tone={t} mergesWith={mergesOf(t.swatchId, true)} mayMergeWith={mergesOf(t.swatchId, false)} estimated={s.estimated} size="sm" />;
           })}
         </div>
       )}

@@ -19,7 +19,7 @@ export function BoardChips({ looks, rows, nameOf, hexOf }: { looks: LookTones[];
           return (
             <div key={l.lookId} className="mb-2">
               <p className="text-xs font-medium text-ink-soft">{l.lookName} <span className="text-ink-mute tabular">· filter {l.filterStops.toFixed(2)} st</span></p>
-              <ZoneRuler title={`Zone ruler through ${l.lookName}`} pins={l.tones.map((t) => ({ id: t.swatchId, name: nameOf(t.swatchId), hex: hexOf(t.swatchId), tone: t, merged: merged.has(t.swatchId) }))} />
+              <ZoneRuler title={`Zone ruler through ${l.lookName}`} pins={l.tones.map((t) => ({ id: t.swatchId, name: nameOf(t.swatchId), hex: hexOf(t.swatchId), tone: t, merged: merged.get(t.swatchId) ?? null }))} />
             </div>
           );
         })}
@@ -36,7 +36,7 @@ export function BoardChips({ looks, rows, nameOf, hexOf }: { looks: LookTones[];
         {rows.map((row) =>
           looks.map((l) => {
             const x = row.looks[l.lookId];
-            return x ? <SplitChip key={`${row.id}-${l.lookId}`} name={row.name} hex={row.hex} tone={x.tone} mergesWith={x.mergesWith} estimated={row.spectrum === 'estimated'} size={cols > 2 ? 'sm' : 'md'} /> : <div key={`${row.id}-${l.lookId}`} />;
+            return x ? <SplitChip key={`${row.id}-${l.lookId}`} name={row.name} hex={row.hex} tone={x.tone} mergesWith={x.mergesWith} mayMergeWith={x.mayMergeWith} estimated={row.spectrum === 'estimated'} size={cols > 2 ? 'sm' : 'md'} /> : <div key={`${row.id}-${l.lookId}`} />;
           }),
         )}
       </div>

@@ -4,6 +4,8 @@ import { useState } from 'react';
 import type { SwatchTone } from '../../../../shared/schemas/board';
 import { greyCss, signedStops } from '../../../lib/tone-format';
 import { downloadText, toCsv } from '../lib/board-csv';
+import { RangeBar } from '../../../components/ui/range-bar';
+import { isExact, WIDE_WIDTH, widthOf, zoneSpanWords } from '../../../lib/tone-range';
 
 export interface BoardRow {
   id: number;
@@ -11,8 +13,8 @@ export interface BoardRow {
   department: string;
   hex: string;
   spectrum: 'measured' | 'estimated';
-  /** per look id: its tone and the names it merges with */
-  looks: Record<number, { tone: SwatchTone; mergesWith: string[] }>;
+  /** per look id: its tone and the names it merges with (whatever the spectra) and may merge with */
+  looks: Record<number, { tone: SwatchTone; mergesWith: string[]; mayMergeWith: string[] }>;
 }
 
 const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel(), sortFns: { alphanumeric: sortFn_alphanumeric } });
@@ -42,12 +44,39 @@ export function BoardTable({ rows, looks, fileName }: { rows: BoardRow[]; looks:
               return t ? <span className="inline-flex items-center gap-1"><span className="inline-block h-3 w-4 rounded-sm" style={{ background: greyCss(t.grey) }} />{t.numeral} <span className="text-ink-mute">({t.zone.toFixed(1)})</span></span> : '—';
             },
           }),
+          helper.accessor((r) => { const t = r.looks[l.id]?.tone; return t ? widthOf(t.range.plausible) : null; }, {
+            id: `range-${l.id}`,
+            header: `Could read · ${l.name}`,
+            sortUndefined: 'last',
+            cell: (c) => {
+              const t = c.row.original.looks[l.id]?.tone;
+              if (!t) return '—';
+              const exact = isExact(t.range);
+              const w = widthOf(t.range.plausible);
+              return (
+                <span className="inline-flex items-center gap-2" data-testid="row-range">
+                  <RangeBar range={t.range} stops={t.stops} className="w-36" />
+                  <span className={exact ? 'text-accent' : w >= WIDE_WIDTH ? 'font-semibold text-warn' : ''}>{exact ? 'measured' : zoneSpanWords(t.range.plausible)}</span>
+                  {!exact && <span className="text-ink-mute">({w.toFixed(1)} st)</span>}
+                </span>
+              );
+            },
+          }),
           helper.accessor((r) => r.looks[l.id]?.tone.stops ?? null, { id: `stops-${l.id}`, header: `Stops · ${l.name}`, sortUndefined: 'last', cell: (c) => (c.getValue() === null ? '—' : signedStops(c.getValue() as number)) }),
           helper.accessor((r) => r.looks[l.id]?.tone.shift ?? null, { id: `shift-${l.id}`, header: `Shift · ${l.name}`, sortUndefined: 'last', cell: (c) => (c.getValue() === null ? '—' : signedStops(c.getValue() as number)) }),
-          helper.accessor((r) => (r.looks[l.id]?.mergesWith ?? []).join(', '), {
+          helper.accessor((r) => [...(r.looks[l.id]?.mergesWith ?? []), ...(r.looks[l.id]?.mayMergeWith ?? [])].join(', '), {
             id: `merge-${l.id}`,
             header: `Merges · ${l.name}`,
-            cell: (c) => (c.getValue() ? <span className="text-warn">{c.getValue()}</span> : ''),
+            cell: (c) => {
+              const x = c.row.original.looks[l.id];
+              if (!x) return '';
+              return (
+                <span className="inline-flex flex-col">
+                  {x.mergesWith.length > 0 && <span className="text-warn"><span className="font-semibold">merges:</span> {x.mergesWith.join(', ')}</span>}
+                  {x.mayMergeWith.length > 0 && <span className="text-warn/75"><span className="font-medium">may merge:</span> {x.mayMergeWith.join(', ')}</span>}
+                </span>
+              );
+            },
           }),
         ]),
       ]),
@@ -56,12 +85,15 @@ export function BoardTable({ rows, looks, fileName }: { rows: BoardRow[]; looks:
   const table = useTable({ features, columns, data: rows, getRowId: (r) => String(r.id), state: { sorting }, onSortingChange: setSorting });
 
   function exportCsv() {
-    const header = ['swatch', 'department', 'colour', 'spectrum', ...looks.flatMap((l) => [`zone (${l.name})`, `zone numeral (${l.name})`, `stops (${l.name})`, `eye stops (${l.name})`, `shift stops (${l.name})`, `grey 0-255 (${l.name})`, `merges with (${l.name})`])];
+    const header = ['swatch', 'department', 'colour', 'spectrum', ...looks.flatMap((l) => [`zone (${l.name})`, `zone numeral (${l.name})`, `stops (${l.name})`, `eye stops (${l.name})`, `shift stops (${l.name})`, `grey 0-255 (${l.name})`, `plausible low stops (${l.name})`, `plausible high stops (${l.name})`, `possible low stops (${l.name})`, `possible high stops (${l.name})`, `merges with (${l.name})`, `may merge with (${l.name})`])];
     const data = table.getRowModel().rows.map((row) => {
       const r = row.original;
       return [r.name, r.department, r.hex, r.spectrum, ...looks.flatMap((l) => {
         const x = r.looks[l.id];
-        return x ? [x.tone.zone.toFixed(2), x.tone.numeral, x.tone.stops.toFixed(2), x.tone.eyeStops.toFixed(2), x.tone.shift.toFixed(2), Math.round(x.tone.grey), x.mergesWith.join('; ')] : ['', '', '', '', '', '', ''];
+        const rg = x?.tone.range;
+        return x && rg
+          ? [x.tone.zone.toFixed(2), x.tone.numeral, x.tone.stops.toFixed(2), x.tone.eyeStops.toFixed(2), x.tone.shift.toFixed(2), Math.round(x.tone.grey), rg.plausible[0].toFixed(2), rg.plausible[1].toFixed(2), rg.possible[0].toFixed(2), rg.possible[1].toFixed(2), x.mergesWith.join('; '), x.mayMergeWith.join('; ')]
+          : ['', '', '', '', '', '', '', '', '', '', '', ''];
       })];
     });
     downloadText(`${fileName}.csv`, toCsv(header, data));

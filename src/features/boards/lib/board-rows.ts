@@ -2,7 +2,8 @@
  * A board's rows: its swatches joined with their tones through each look shown (and whom they merge with),
  * and the orders the chips can be laid out in. Pure; the board page and its table read these.
  */
-import type { BoardView, LookTones } from '../../../../shared/schemas/board';
+import type { BoardView, LookTones, Merge } from '../../../../shared/schemas/board';
+import { isExact, MEASURE_FIRST_WIDTH, widthOf } from '../../../lib/tone-range';
 import type { SwatchView } from '../../../../shared/schemas/swatch';
 import type { BoardRow } from '../components/board-table';
 
@@ -24,7 +25,10 @@ export function boardRows(swatchIds: readonly number[], swatchById: ReadonlyMap<
     const per: BoardRow['looks'] = {};
     for (const l of looks) {
       const t = l.tones.find((x) => x.swatchId === id);
-      if (t) per[l.lookId] = { tone: t, mergesWith: l.merges.filter((m) => m.a === id || m.b === id).map((m) => swatchName(swatchById, m.a === id ? m.b : m.a)) };
+      if (!t) continue;
+      const mine = l.merges.filter((m) => m.a === id || m.b === id);
+      const other = (m: Merge) => swatchName(swatchById, m.a === id ? m.b : m.a);
+      per[l.lookId] = { tone: t, mergesWith: mine.filter((m) => m.certainty === 'certain').map(other), mayMergeWith: mine.filter((m) => m.certainty !== 'certain').map(other) };
     }
     return { id, name: s?.name ?? `#${id}`, department: s?.department ?? '', hex: s?.hex ?? '#000000', spectrum: s?.spectrum ?? 'estimated', looks: per };
   });
@@ -41,13 +45,53 @@ export function sortRows(rows: readonly BoardRow[], sort: BoardSort, lookId: num
   return r;
 }
 
-/** Ids of the swatches that merge with another through `look`. */
-export function mergedIds(look: LookTones | undefined): Set<number> {
-  return new Set((look?.merges ?? []).flatMap((m) => [m.a, m.b]));
+/** How sure a merge is, per swatch id through `look`: 'certain' when any of its merges is, else 'possible'. */
+export function mergedIds(look: LookTones | undefined): Map<number, Merge['certainty']> {
+  const out = new Map<number, Merge['certainty']>();
+  for (const m of look?.merges ?? []) {
+    for (const id of [m.a, m.b]) if (out.get(id) !== 'certain') out.set(id, m.certainty);
+  }
+  return out;
 }
 
-/** Merges flagged over all the looks shown. */
-export const mergeCount = (looks: readonly LookTones[]) => looks.reduce((n, l) => n + l.merges.length, 0);
+/** A look's merges, certain ones first, each kind closest on the medium first. */
+export function sortMerges(merges: readonly Merge[]): Merge[] {
+  return [...merges].sort((x, y) => (x.certainty === y.certainty ? x.stopsApart - y.stopsApart : x.certainty === 'certain' ? -1 : 1));
+}
+
+/** Merges flagged over all the looks shown: certain ones and possible ones. */
+export const mergeCount = (looks: readonly LookTones[]) =>
+  looks.reduce((n, l) => {
+    for (const m of l.merges) n[m.certainty === 'certain' ? 'certain' : 'possible']++;
+    return n;
+  }, { certain: 0, possible: 0 });
+
+/** A swatch worth measuring: its widest plausible range over the looks shown, and through which look. */
+export interface MeasureFirst {
+  id: number;
+  name: string;
+  widthStops: number;
+  lookName: string;
+}
+
+/**
+ * The estimated swatches whose plausible range is widest through any of the looks (at least
+ * MEASURE_FIRST_WIDTH stops), widest first, at most `max`: measuring these settles the most.
+ */
+export function measureFirst(rows: readonly BoardRow[], looks: readonly LookTones[], max = 5): MeasureFirst[] {
+  const out: MeasureFirst[] = [];
+  for (const r of rows) {
+    let best: MeasureFirst | null = null;
+    for (const l of looks) {
+      const t = r.looks[l.lookId]?.tone;
+      if (!t || isExact(t.range)) continue;
+      const w = widthOf(t.range.plausible);
+      if (w >= MEASURE_FIRST_WIDTH && (!best || w > best.widthStops)) best = { id: r.id, name: r.name, widthStops: w, lookName: l.lookName };
+    }
+    if (best) out.push(best);
+  }
+  return out.sort((a, b) => b.widthStops - a.widthStops).slice(0, max);
+}
 
 /** Whether the looks or thresholds chosen differ from the board's saved ones. */
 export function settingsDirty(b: BoardView, lookIds: readonly number[], t: { mergeStops: number; mergeDeltaE: number }): boolean {

@@ -1,7 +1,10 @@
 import { useMemo } from 'react';
 import { CharacteristicCurveChart, type CurveSwatch } from './characteristic-curve-chart';
 import { formatEI, formatFactor, formatFootcandles, formatLux, formatSeconds, formatStopsLabel, formatTStop } from '../../../../shared/tone/exposure-format';
-import type { ExposureSheet } from '../../../../shared/schemas/sheet';
+import type { ExposureSheet, SheetSwatch } from '../../../../shared/schemas/sheet';
+import { ZONE_NUMERALS, zoneFromStops } from '../../../../shared/tone/zones';
+import { zoneFrac } from '../../../components/ui/range-bar';
+import { isExact, WIDE_WIDTH, widthOf, zoneSpanWords } from '../../../lib/tone-range';
 
 /** Inter's tabular figures also widen hyphens, so words in tables are set with normal figures. */
 const WORDS = '[font-variant-numeric:normal]';
@@ -11,6 +14,39 @@ const signed = (v: number) => {
   const r = Number(v.toFixed(1));
   return r === 0 ? '0.0' : `${r > 0 ? '+' : '−'}${Math.abs(r).toFixed(1)}`;
 };
+
+const pct = (f: number) => `${(f * 100).toFixed(2)}%`;
+const spanOf = (r: readonly [number, number]) => {
+  const lo = zoneFrac(zoneFromStops(r[0]));
+  return { left: pct(lo), width: pct(Math.max(0, zoneFrac(zoneFromStops(r[1])) - lo)) };
+};
+
+/**
+ * The sheet's zone ruler (as on its PDF): the ramp 0..X with every swatch's plausible range as a bar, every
+ * possible spectrum as a fainter line, and the computed tone as a mark (warning colour when lost or blown).
+ */
+function SheetZoneRuler({ swatches }: { swatches: SheetSwatch[] }) {
+  return (
+    <div className="mt-3" role="img" aria-label={`Zone ruler: ${swatches.map((w) => `${w.name} zone ${w.numeral}${isExact(w.range) ? '' : `, could read ${zoneSpanWords(w.range.plausible)}`}`).join('; ')}`} data-testid="sheet-zone-ruler">
+      <div className="flex overflow-hidden rounded-sm border border-paper-line">
+        {ZONE_NUMERALS.map((n, z) => (
+          <span key={n} className={`flex-1 py-px text-center text-[9px] font-semibold ${z < 6 ? 'text-white' : 'text-ink'}`} style={{ background: `var(--zone-${z})` }}>{n}</span>
+        ))}
+      </div>
+      <div className="relative h-5">
+        {swatches.map((w) => !isExact(w.range) && (
+          <span key={`r${w.swatchId}`}>
+            <span className="absolute top-[10px] h-px bg-ink-mute/40" style={spanOf(w.range.possible)} />
+            <span className="absolute top-[9px] h-[3px] bg-ink-soft/45" style={spanOf(w.range.plausible)} />
+          </span>
+        ))}
+        {swatches.map((w) => (
+          <span key={`m${w.swatchId}`} className={`absolute top-px h-0 w-0 -translate-x-1/2 border-x-[3px] border-b-[5px] border-x-transparent ${w.lost || w.blown ? 'border-b-warn' : 'border-b-ink'}`} style={{ left: pct(zoneFrac(w.zone)) }} />
+        ))}
+      </div>
+    </div>
+  );
+}
 
 function H({ children }: { children: string }) {
   return <h2 className="mb-2 text-[11px] font-semibold uppercase tracking-widest text-accent">{children}</h2>;
@@ -134,13 +170,14 @@ export function ExposureSheetView({ s }: { s: ExposureSheet }) {
           {s.boards.length > 0 && ` Swatches from: ${s.boards.join(', ')}.`}
         </p>
         <CharacteristicCurveChart mediumId={s.toneMediumId} settings={settings} boxSpeed={s.tone.boxSpeed ?? undefined} swatches={pins} height={240} maxLabels={0} showList={false} />
+        {s.swatches.length > 0 && <SheetZoneRuler swatches={s.swatches} />}
       </section>
 
       {s.swatches.length > 0 ? (
         <section className="mb-5">
           <table className="sheet-swatches w-full text-sm">
             <thead className={`text-left text-[10px] uppercase tracking-wide text-ink-mute ${WORDS}`}>
-              <tr><th>Colour · grey</th><th className="px-1">Swatch</th><th className="px-1">Board</th><th className="px-1 text-right">Zone</th><th className="px-1 text-right">Stops</th><th className="px-1 text-right">Shift</th><th className="px-2">Note</th></tr>
+              <tr><th>Colour · grey</th><th className="px-1">Swatch</th><th className="px-1">Board</th><th className="px-1 text-right">Zone</th><th className="px-1 text-right">Stops</th><th className="px-1">Could read</th><th className="px-1 text-right">Shift</th><th className="px-2">Note</th></tr>
             </thead>
             <tbody>
               {s.swatches.map((w) => (
@@ -153,16 +190,20 @@ export function ExposureSheetView({ s }: { s: ExposureSheet }) {
                   </td>
                   <td className={`px-1 ${WORDS} ${w.key ? 'font-semibold' : ''}`}>{w.name}{w.key ? ' (key)' : ''}</td>
                   <td className={`px-1 text-ink-soft ${WORDS}`}>{w.board}</td>
-                  <td className={NUM}>{w.numeral} ({w.zone.toFixed(1)})</td>
+                  <td className={`${NUM} whitespace-nowrap`}>{w.numeral} ({w.zone.toFixed(1)})</td>
                   <td className={NUM}>{signed(w.stops)}</td>
+                  <td className={`whitespace-nowrap px-1 tabular-nums ${isExact(w.range) ? 'text-ink-mute' : widthOf(w.range.plausible) >= WIDE_WIDTH ? 'font-semibold text-warn' : 'text-ink-soft'}`} title={isExact(w.range) ? 'measured spectrum: the tone is as computed' : `plausible range ${widthOf(w.range.plausible).toFixed(1)} st wide`} data-testid="sheet-could-read">
+                    {isExact(w.range) ? 'measured' : zoneSpanWords(w.range.plausible)}
+                  </td>
                   <td className={`${NUM} ${Math.abs(w.shift) >= 1 ? 'text-warn' : ''}`}>{signed(w.shift)}</td>
-                  <td className="px-2 text-warn">{w.lost ? 'texture lost' : w.blown ? 'blown' : ''}</td>
+                  <td className="whitespace-nowrap px-2 text-warn">{w.lost ? 'texture lost' : w.blown ? 'blown' : widthOf(w.range.plausible) >= WIDE_WIDTH ? 'measure it' : ''}</td>
                 </tr>
               ))}
             </tbody>
           </table>
           <p className="mt-1 text-[11px] text-ink-mute">
             Stops from middle grey on the medium with the key placed; shift = medium minus eye (+ reads lighter than it looks).
+            “Could read”: the zones a colour given only as a value could land on through this look with a realistic spectrum (the bar; the faint line is every possible spectrum); measure the swatch to be sure.
             {s.swatchesLeftOff > 0 && ` ${s.swatchesLeftOff} more swatches are on the boards.`}
           </p>
         </section>

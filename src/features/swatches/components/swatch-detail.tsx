@@ -6,6 +6,7 @@ import type { SwatchView } from '../../../../shared/schemas/swatch';
 import { useSwatchTones } from '../api/get-swatch-tones';
 import { SpectrumBadge } from './spectrum-badge';
 import { SpectrumLine } from './spectrum-line';
+import { ToneSureness } from './tone-sureness';
 
 /** One swatch: its colour, reflectance, and its tone through each look; `children` below (e.g. putting it on a board). */
 export function SwatchDetail({ pid, swatch: sel, children }: { pid: number; swatch: SwatchView; children?: ReactNode }) {
@@ -35,6 +36,7 @@ export function SwatchDetail({ pid, swatch: sel, children }: { pid: number; swat
           );
         })}
       </div>
+      {tones.data && <ToneSureness looks={tones.data.looks} measured={sel.spectrum === 'measured'} />}
       {children}
     </Card>
   );
