@@ -78,7 +78,7 @@ export interface PathCurve {
   source: string;
   /** filters only */
   on?: FilterPlace;
-  /** values on the working grid (380–780 nm, 5 nm), as the engine holds them */
+  /** values on the working grid (350–900 nm, 1 nm), as the engine holds them */
   values: number[];
 }
 

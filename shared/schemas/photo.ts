@@ -69,7 +69,7 @@ export interface PhotoFilterEdit {
 export interface PhotoLookView {
   /** hash of the look's content: equal looks render alike */
   contentHash: string;
-  /** wavelengths of every `values`, nm (380–780 at 5) */
+  /** wavelengths of every `values`, nm (the working grid, 350–900 at 1) */
   nm: number[];
   light: { label: string; values: number[]; edit: PhotoLightEdit | null };
   filters: { label: string; on: FilterPlace; values: number[]; edit: PhotoFilterEdit | null }[];

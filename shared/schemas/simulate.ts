@@ -52,7 +52,7 @@ export interface LibraryItemView {
   note: string;
   /** the source form (light / filter source above; media: model or cmf) */
   definition: unknown;
-  /** 81 samples on the grid, 380–780 nm at 5 nm (lights and media peak 1; filters transmittance) */
+  /** samples on the working grid, 350–900 nm at 1 nm (lights and media peak 1; filters transmittance) */
   values: number[];
 }
 

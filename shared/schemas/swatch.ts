@@ -38,6 +38,8 @@ export const tableInputSchema = z
     fileName: z.string().trim().max(200).optional(),
     /** 0-based column of the values in the file (default 1) */
     valueColumn: z.number().int().min(1).max(20).optional(),
+    /** in a CGATS file of several samples, the one to read: its SAMPLE_ID, SAMPLE_NAME or 1-based index */
+    sample: z.string().trim().min(1).max(200).optional(),
   })
   .refine((t) => (t.text === undefined) !== (t.samples === undefined), { message: 'Give either the file text or the samples.', path: ['text'] });
 
@@ -86,4 +88,44 @@ export interface SwatchView extends ItemView {
   spectrum: 'measured' | 'estimated';
   /** the reflectance on the grid ([nm, 0..1]); measured, or the estimate */
   reflectance?: [number, number][];
+}
+
+/** Largest spectrophotometer file (CGATS.17, Argyll .sp/.ti3) accepted for a swatch import, bytes. */
+export const MAX_IMPORT_BYTES = 4 * 1024 * 1024;
+/** Most samples one import may add. */
+export const MAX_IMPORT_SAMPLES = 500;
+
+/** An empty form field is no value. */
+const blankAsMissing = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? undefined : v);
+
+/**
+ * The form fields beside the `file` part of `POST …/swatches/import` (and `/import/preview`): the department
+ * of the new swatches (default: the board's, else the importer's) and a board of the production to put them on.
+ */
+export const swatchImportFieldsSchema = z.object({
+  department: z.preprocess(blankAsMissing, departmentSchema.optional()),
+  boardId: z.preprocess(blankAsMissing, z.coerce.number().int('A board id.').positive('A board id.').optional()),
+});
+export type SwatchImportFields = z.input<typeof swatchImportFieldsSchema>;
+
+/** One sample of an import preview. */
+export interface SwatchImportPreviewSample {
+  name: string;
+  /** its colour under D65, sRGB */
+  hex: string;
+  /** measured points in the file */
+  points: number;
+  firstNm: number;
+  lastNm: number;
+  /** the 1-based line of its set in the file */
+  line: number;
+}
+
+/** What `POST …/swatches/import/preview` answers: nothing is written. */
+export interface SwatchImportPreview {
+  fileType: string;
+  /** what the values were taken to be (fraction or percent) and why */
+  assumption: string;
+  count: number;
+  samples: SwatchImportPreviewSample[];
 }

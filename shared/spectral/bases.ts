@@ -51,12 +51,12 @@ export function toEnergyBasis(values: Spectrum, basis: MediumBasis): Spectrum {
   return normalisePeak(makeSpectrum(e), 'sensitivity');
 }
 
-/** Medium pairs → relative sensitivity per unit energy on the grid, peak 1. */
+/** Medium pairs → relative sensitivity per unit energy on the grid, peak 1; zero beyond the data (policy.ts). */
 export function mediumFromPairs(pairs: unknown, basis: MediumBasis = 'energy'): Spectrum {
   const raw =
     basis === 'log10'
-      ? spectrumFromPairs(pairs, { quantity: 'log10 sensitivity' })
-      : spectrumFromPairs(pairs, { min: 0, quantity: basis === 'quantum' ? 'quantum efficiency' : 'sensitivity' });
+      ? spectrumFromPairs(pairs, { quantity: 'log10 sensitivity', beyond: 'zero', outside: -Infinity })
+      : spectrumFromPairs(pairs, { min: 0, quantity: basis === 'quantum' ? 'quantum efficiency' : 'sensitivity', beyond: 'zero' });
   return toEnergyBasis(raw, basis);
 }
 

@@ -11,7 +11,9 @@ import illuminantF2Json from '../../data/cie/illuminant-f2.json';
 import illuminantF7Json from '../../data/cie/illuminant-f7.json';
 import illuminantF11Json from '../../data/cie/illuminant-f11.json';
 import daylightJson from '../../data/cie/daylight-components.json';
-import { makeSpectrum, resample } from './spectrum';
+import { GRID_NM } from './grid';
+import { onWorkingGrid, spragueAt } from './policy';
+import { makeSpectrum } from './spectrum';
 import type { Spectrum } from './types';
 
 const values = z.array(z.number()).min(3);
@@ -23,8 +25,16 @@ const daylightTable = z.object({ ...header, values: z.object({ s0: values, s1: v
 /** A published table as it sits in data/cie, with its name, source and units. */
 export type CieTable = z.infer<typeof singleTable>;
 
+/** A published table onto the working grid: linear inside, its end values held beyond (CIE 167). */
 function toGrid(startNm: number, stepNm: number, v: number[]): Spectrum {
-  return resample(makeSpectrum(v, { startNm, endNm: startNm + stepNm * (v.length - 1), stepNm }));
+  const nm = v.map((_, i) => startNm + i * stepNm);
+  return makeSpectrum(onWorkingGrid(nm, v, 'hold'));
+}
+
+/** A smooth published function onto the working grid by Sprague's formula (CIE 167:2005), zero outside its table. */
+function spragueToGrid(startNm: number, stepNm: number, v: number[]): Spectrum {
+  const end = startNm + stepNm * (v.length - 1);
+  return makeSpectrum(Array.from(GRID_NM, (nm) => (nm < startNm || nm > end ? 0 : spragueAt(startNm, stepNm, v, nm))));
 }
 
 /** The tabulated illuminants, by CIE name. */
@@ -46,19 +56,14 @@ export const OBSERVER_INFO = { name: observer.name, source: observer.source, uni
 /** Name, source and units of the daylight components table. */
 export const DAYLIGHT_INFO = { name: daylight.name, source: daylight.source, units: daylight.units };
 
-/** CIE 1931 2° colour-matching functions x̄, ȳ, z̄ on the grid (dimensionless; CIE 015:2018). */
+/**
+ * CIE 1931 2° colour-matching functions x̄, ȳ, z̄ on the working grid (dimensionless; CIE 015:2018): the
+ * 5 nm table interpolated to 1 nm by Sprague's formula (CIE 167:2005), zero outside 360–830 nm.
+ */
 export const CMF: { readonly x: Spectrum; readonly y: Spectrum; readonly z: Spectrum } = Object.freeze({
-  x: toGrid(observer.startNm, observer.stepNm, observer.values.x),
-  y: toGrid(observer.startNm, observer.stepNm, observer.values.y),
-  z: toGrid(observer.startNm, observer.stepNm, observer.values.z),
-});
-
-/** The full observer table (360–830 nm at 5 nm) and its grid samples, for the integration rule. */
-export const CMF_TABLE = Object.freeze({
-  startNm: observer.startNm,
-  stepNm: observer.stepNm,
-  values: observer.values,
-  onGrid: { x: CMF.x.values, y: CMF.y.values, z: CMF.z.values },
+  x: spragueToGrid(observer.startNm, observer.stepNm, observer.values.x),
+  y: spragueToGrid(observer.startNm, observer.stepNm, observer.values.y),
+  z: spragueToGrid(observer.startNm, observer.stepNm, observer.values.z),
 });
 
 /** CIE daylight components S0, S1, S2 on the grid (relative power, S0 = 100 at 560 nm; CIE 015:2018). */

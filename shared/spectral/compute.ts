@@ -10,12 +10,12 @@
  *   simulate(request, table)                                       POST /api/simulate in one call
  *   reflectanceFromSrgb(hexOrRgb, table)                           (estimate.ts) estimated reflectance of a colour
  *
- * Model, for a surface ρ, light E, filters T = ΠTᵢ, medium S (all on the 380–780 nm grid):
+ * Model, for a surface ρ, light E, filters T = ΠTᵢ, medium S (all on the 350–900 nm, 1 nm working grid):
  *   XYZ: CIE 1931 2° under E, Y = 100 for the perfect white; L*a*b* against that white (the eye sees
  *     the lit scene, not the lens filters);
  *   filter factor F = ∫ E·S / ∫ E·T·S, filter stops = log2 F; opaque when stops > 10;
  *   exposure m = ∫ ρ·E·T·S / ∫ E·T·S (opened up by F; a neutral grey reads the same through any filter);
- *   integrals by the rule of policy.ts, reduced to 81 weights per light path (integrate.ts);
+ *   integrals by the rule of policy.ts, reduced to one weight per grid sample and light path (integrate.ts);
  *   stops = log2(m / 0.18); eyeStops = log2((Y/100) / 0.18); shift = stops − eyeStops;
  *   zone = 5 + stops, clamped to 0..10 (continuous; round it for the Roman numeral).
  *   There is no key placement here: stops and zone are as metered, before any key is placed
@@ -32,8 +32,7 @@ import { kindOfId, libraryFilter, libraryLight, libraryMedium } from './library'
 import { blackbody, cieIlluminant, daylight, lightThroughGel, whiteLed } from './lights';
 import { FLOOR_STOPS, MAX_FILTER_STOPS, MIDDLE_GREY, OPAQUE_LIMIT_STOPS } from './limits';
 import { eyeMedium, mediumFromModel } from './media';
-import { GRID_NM_LIST } from './grid';
-import { exposureRange, xyzD65 } from './metamer-range';
+import { ESTIMATE_NM, exposureRange, xyzD65 } from './metamer-range';
 import { GRID_SIZE } from './policy';
 import type { FilterSource, LightSource, MediumSource, SwatchSource } from './sources';
 import { constantSpectrum, multiply, onGrid } from './spectrum';
@@ -73,7 +72,7 @@ export interface SwatchResult {
 export interface StopsRange {
   possible: [number, number];
   plausible: [number, number];
-  /** the reflectances (on the grid, [nm, ρ]) reaching the possible range's ends, when asked for */
+  /** the reflectances ([nm, ρ] on the estimate's 5 nm grid, linear between) reaching the possible range's ends, when asked for */
   extremes?: { low: [number, number][]; high: [number, number][] };
 }
 
@@ -286,7 +285,7 @@ export function stopsRange(lightPath: LightPath, swatch: Pick<ResolvedSwatch, 'r
     plausible: [stopsFromGrey(r.plausible[0]), stopsFromGrey(r.plausible[1])],
   };
   if (r.extremes) {
-    const pairs = (v: Float64Array) => Array.from(v, (x, i) => [GRID_NM_LIST[i], Math.round(x * 1e6) / 1e6] as [number, number]);
+    const pairs = (v: Float64Array) => Array.from(v, (x, i) => [ESTIMATE_NM[i], Math.round(x * 1e6) / 1e6] as [number, number]);
     out.extremes = { low: pairs(r.extremes.low), high: pairs(r.extremes.high) };
   }
   return out;
@@ -295,7 +294,7 @@ export function stopsRange(lightPath: LightPath, swatch: Pick<ResolvedSwatch, 'r
 /**
  * Every swatch through `lightPath`: XYZ and L*a*b* to the eye, exposure m, stops, eye stops, shift and
  * zone (definitions in the header), and with `options.ranges` how far each tone could move. Cost per
- * swatch: four 81-sample dot products, plus four small linear programs for a range.
+ * swatch: four 551-sample dot products, plus four small linear programs for a range.
  */
 export function simulateSwatches(lightPath: LightPath, swatches: readonly ResolvedSwatch[], options: SimulateOptions = {}): SimulationResult {
   const { x: wx, y: wy, z: wz } = lightPath.eyeWeights;

@@ -12,6 +12,7 @@ import { blendedReflectance } from './node-spectra';
 import { estimateRows, type UpsampleTable } from './upsample-table';
 import { lhtss } from './lhtss';
 import { makeSpectrum } from './spectrum';
+import { estimateToGrid } from './policy';
 import type { Lab3, Rgb3, Spectrum, Xyz } from './types';
 
 /** Linear sRGB outside [−ε, 1 + ε] is out of gamut (ε absorbs rounding of typed-in L*a*b*). */
@@ -59,5 +60,5 @@ export function estimateFromXyz(xyz: Xyz, table: UpsampleTable): Spectrum {
   if (lin.every((v) => v >= 0 && v <= 1)) return reflectanceFromLinearRgb(lin, table);
   const r = lhtss(estimateRows(), xyz);
   if (!r.converged) throw new SpectralInputError(`XYZ (${xyz.map((v) => v.toFixed(2)).join(', ')}) is not the colour of any reflectance 0..1 under D65`);
-  return makeSpectrum(r.reflectance);
+  return makeSpectrum(estimateToGrid(r.reflectance));
 }

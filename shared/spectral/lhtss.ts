@@ -4,8 +4,11 @@
  * Method: S. A. Burns, "Numerical methods for smoothest reflectance reconstruction", Color Research &
  * Application 45(1), 2020 — the least hyperbolic tangent slope squared (LHTSS) reconstruction:
  *   ρ(λ) = (1 + tanh z(λ)) / 2,  minimise Σ (z(λᵢ₊₁) − z(λᵢ))²  subject to  A·ρ = XYZ,
- * with A the CIE 1931 2° tristimulus weights of D65 on the working grid (the eye's integration rule,
- * integrate.ts) and XYZ the colour under D65 (Y = 100 for white). ρ stays strictly inside (0, 1) and
+ * on the estimate's grid (350–900 nm at 5 nm, policy.ts), with A the CIE 1931 2° tristimulus weights of D65
+ * (the eye's integration rule, integrate.ts, carried to that grid) and XYZ the colour under D65 (Y = 100
+ * for white). Where the eye sees nothing (below 360 and above 830 nm) the slope term alone decides, so
+ * the reflectance continues flat: the estimate is defined there, and the metamer ranges say how little
+ * is known of it. ρ stays strictly inside (0, 1) and
  * reproduces the colour; the tanh keeps the reconstruction flat where the eye gives no information
  * rather than bending it toward 0 or 1 (measured on published reflectances against the sigmoid-of-a-
  * quadratic it replaces: README, "How sure is a grey").
@@ -16,13 +19,13 @@
  * by a Schur complement on the 3 multipliers (the Hessian in z is tridiagonal), with a halving line
  * search on the residual; O(n) per step, so a whole table of colours is built in seconds.
  */
-import { GRID_SIZE } from './policy';
+import { ESTIMATE_SIZE } from './policy';
 import type { Xyz } from './types';
 
 /** Ridge weight on Σ z² (dimensionless, against the slope term). */
 export const RIDGE = 1e-6;
 
-/** The colour rows: three arrays of GRID_SIZE weights (X, Y, Z of ρ = Σ ρᵢ·rowᵢ). */
+/** The colour rows: three arrays of ESTIMATE_SIZE weights on the estimate's grid (X, Y, Z of ρ = Σ ρᵢ·rowᵢ). */
 export type ColourRows = readonly [Float64Array, Float64Array, Float64Array];
 
 /** A solve's state, reusable as the start of a neighbouring colour's solve. */
@@ -33,7 +36,7 @@ export interface LhtssState {
 
 /** Outcome of one solve. */
 export interface LhtssResult {
-  /** reflectance 0..1 on the grid */
+  /** reflectance 0..1 on the estimate's grid */
   reflectance: Float64Array;
   state: LhtssState;
   /** |A·ρ − XYZ| at the end (XYZ units, Y = 100 for white) */
@@ -42,7 +45,7 @@ export interface LhtssResult {
   converged: boolean;
 }
 
-const n = GRID_SIZE;
+const n = ESTIMATE_SIZE;
 // scratch (allocation-free hot loop)
 const rho = new Float64Array(n);
 const d1 = new Float64Array(n);

@@ -81,12 +81,14 @@ export function illuminantA(): Spectrum {
 }
 
 /**
- * A CIE illuminant by name. Relative power, peak 1. A, D65, F2, F7, F11 from the published tables;
+ * A CIE illuminant by name. Relative power, peak 1. D65, F2, F7, F11 from the published tables (their
+ * end values held beyond them, policy.ts); A from its defining formula, which holds at every wavelength;
  * D50 from the daylight formula at 5003 K (the way CIE defines it; the only D50 table at hand is
  * printed to 3 decimals, see data/cie/illuminant-d50.json).
  */
 export function cieIlluminant(name: CieIlluminantName): Spectrum {
   if (name === 'D50') return daylight(D50_CCT_K);
+  if (name === 'A') return illuminantA();
   if (!(name in CIE_TABLES)) throw new SpectralInputError(`unknown CIE illuminant "${name}"`);
   return normalisePeak(cieTable(name as CieTableName), `illuminant ${name}`);
 }

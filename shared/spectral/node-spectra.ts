@@ -7,25 +7,28 @@
  * one dot product per node and look (`nodeExposures`) and then the same blend of node exposures.
  * Swatches and pixels therefore get the same number for the same colour.
  */
-import { GRID_SIZE } from './policy';
+import { ESTIMATE_SIZE, estimateToGrid, weightsToEstimateGrid } from './policy';
 import { makeSpectrum, type Spectrum } from './spectrum';
 import { locateCell, type TableCell, type UpsampleTable } from './upsample-table';
 
-/** Reflectance 0..1 of every node of `table` on the working grid (node k's 81 values from k·81). */
+/** Reflectance 0..1 of every node of `table` on the estimate's grid (node k's 111 values from k·111). */
 export function nodeReflectances(table: UpsampleTable): Float32Array {
   return table.spectra;
 }
 
 /**
- * Σ wᵢ·ρₖ(λᵢ) for every node k: with `weights` a light path's medium weights this is the medium exposure m
- * of every node (linear, relative to white, 0.18 = middle grey); with eye weights, X, Y or Z.
+ * Σ wᵢ·ρₖ(λᵢ) for every node k, with `weights` on the working grid: with a light path's medium weights this
+ * is the medium exposure m of every node (linear, relative to white, 0.18 = middle grey); with eye
+ * weights, X, Y or Z. The weights are carried to the estimate's grid once (exactly: the transpose of the
+ * interpolation the nodes go through), so a node costs one 111-term dot product.
  */
 export function nodeExposures(reflectances: Float32Array, weights: Float64Array): Float64Array {
-  const n = reflectances.length / GRID_SIZE;
+  const w = weightsToEstimateGrid(weights);
+  const n = reflectances.length / ESTIMATE_SIZE;
   const out = new Float64Array(n);
   for (let k = 0, o = 0; k < n; k++) {
     let m = 0;
-    for (let i = 0; i < GRID_SIZE; i++, o++) m += weights[i] * reflectances[o];
+    for (let i = 0; i < ESTIMATE_SIZE; i++, o++) m += w[i] * reflectances[o];
     out[k] = m;
   }
   return out;
@@ -48,19 +51,20 @@ export function cellCorners(table: UpsampleTable, cell: TableCell): { nodes: num
 }
 
 /**
- * The estimated reflectance (0..1 on the grid) of linear sRGB `rgb` (each 0..1, clamped): the trilinear
- * blend of its cell's corner node spectra. Reproduces the colour under D65.
+ * The estimated reflectance (0..1 on the working grid) of linear sRGB `rgb` (each 0..1, clamped): the
+ * trilinear blend of its cell's corner node spectra, carried from the estimate's grid. Reproduces the
+ * colour under D65.
  */
 export function blendedReflectance(table: UpsampleTable, rgb: readonly [number, number, number]): Spectrum {
   const refl = nodeReflectances(table);
   const c = rgb.map((v) => Math.min(1, Math.max(0, v)));
   const { nodes, weights } = cellCorners(table, locateCell(table, c[0], c[1], c[2]));
-  const out = new Float64Array(GRID_SIZE);
+  const out = new Float64Array(ESTIMATE_SIZE);
   for (let j = 0; j < 8; j++) {
     const w = weights[j];
     if (w === 0) continue;
-    const o = nodes[j] * GRID_SIZE;
-    for (let i = 0; i < GRID_SIZE; i++) out[i] += w * refl[o + i];
+    const o = nodes[j] * ESTIMATE_SIZE;
+    for (let i = 0; i < ESTIMATE_SIZE; i++) out[i] += w * refl[o + i];
   }
-  return makeSpectrum(out);
+  return makeSpectrum(estimateToGrid(out));
 }

@@ -3,7 +3,7 @@
  * here returns a new spectrum and never writes into its arguments.
  */
 import { SpectralInputError } from './errors';
-import { GRID_SHAPE, GRID_SIZE, MIN_COVERAGE_NM, interpolateAt, wavelengthsOf } from './policy';
+import { GRID_SHAPE, GRID_SIZE, MIN_COVERAGE_NM, interpolateAt, onWorkingGrid, wavelengthsOf, type Beyond } from './policy';
 import { isGridShape } from './grid';
 import type { Spectrum, SpectrumShape } from './types';
 
@@ -63,7 +63,7 @@ export function mapValues(s: Spectrum, fn: (value: number, nm: number) => number
 export function normalisePeak(s: Spectrum, what = 'spectrum'): Spectrum {
   let max = 0;
   for (const v of s.values) if (v > max) max = v;
-  if (!(max > 0)) throw new SpectralInputError(`the ${what} is zero everywhere in 380–780 nm`);
+  if (!(max > 0)) throw new SpectralInputError(`the ${what} is zero everywhere in 350–900 nm`);
   return scale(s, 1 / max);
 }
 
@@ -88,11 +88,15 @@ export interface PairLimits {
   quantity?: string;
   /** extra advice when a value exceeds `max` */
   overMaxHint?: string;
+  /** beyond the data (policy.ts): held constant (default) or zero */
+  beyond?: Beyond;
+  /** the value beyond the data, overriding `beyond` (e.g. −∞ for log10 sensitivities) */
+  outside?: number;
 }
 
 /**
- * Reads `[nm, value]` pairs at any spacing and in any order, checks them and resamples them onto the
- * working grid by the policy. Throws SpectralInputError, with the path of the bad pair, for:
+ * Reads `[nm, value]` pairs at any spacing and in any order, checks them and puts them onto the working
+ * grid by the policy (band-averaged where finer than the grid; beyond the data per `limits.beyond`). Throws SpectralInputError, with the path of the bad pair, for:
  * non-numbers, wavelengths ≤ 0, duplicate wavelengths, values outside `limits`, fewer than 3 points,
  * and data not covering at least 400–700 nm.
  */
@@ -129,5 +133,13 @@ export function spectrumFromPairs(pairs: unknown, limits: PairLimits = {}): Spec
   }
   const nm = rows.map((r) => r[0]);
   const values = rows.map((r) => r[1]);
-  return makeSpectrum(interpolateAt(nm, values, wavelengthsOf(GRID_SHAPE)));
+  return makeSpectrum(onWorkingGrid(nm, values, limits.beyond ?? 'hold', limits.outside));
+}
+
+/**
+ * Stored `[nm, value]` pairs (already checked and in the engine's basis, at any grid they were saved on)
+ * onto the working grid by the policy, `beyond` their range as the kind of curve asks (policy.ts).
+ */
+export function spectrumFromStoredPairs(pairs: readonly (readonly [number, number])[], beyond: Beyond): Spectrum {
+  return makeSpectrum(onWorkingGrid(pairs.map((p) => p[0]), pairs.map((p) => p[1]), beyond));
 }

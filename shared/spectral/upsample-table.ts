@@ -3,20 +3,21 @@
  * the node's colour (lhtss.ts: the smoothest reflectance in (0, 1) with that colour under D65, Burns 2020).
  * A colour's estimate is the trilinear blend of its cell's eight node spectra (node-spectra.ts), which
  * reproduces it exactly. Parameters and source: data/upsample/method.json. The table is big (R = 32:
- * 98,304 spectra of 81 samples), so it is passed in by the caller: built by `buildUpsampleTable()` (a few
+ * 98,304 spectra of 111 samples), so it is passed in by the caller: built by `buildUpsampleTable()` (a few
  * seconds) and cached by the server (server/services/upsample-table.ts); the browser fetches a compact
- * form (GET /api/library/upsample-table).
+ * form (GET /api/library/upsample-table). Node spectra live on the estimate's grid (350–900 nm at 5 nm,
+ * 111 samples, policy.ts) and are carried to the working grid by linear interpolation when used.
  *
  * Layout (as in Jakob & Hanika 2019, whose table layout this keeps): for a linear colour, l = index of its
  * largest channel, z = that channel, x = rgb[(l+1)%3] / z, y = rgb[(l+2)%3] / z. Nodes: x and y uniform on
  * 0..1; z at smoothstep(smoothstep(k / (R − 1))), dense near black and white. Node index
- * ((l·R + zi)·R + yi)·R + xi; its spectrum at spectra[node·81 …].
+ * ((l·R + zi)·R + yi)·R + xi; its spectrum at spectra[node·111 …].
  *
  * Binary forms (little-endian), both starting: 4-byte magic; uint32 R; uint32 method version; uint32 grid
- * samples (81); float32 zNodes[R]; then
- *   "GSU2" float32 spectra[3·R³·81] (the server's cache: exact);
+ * samples (111); float32 zNodes[R]; then
+ *   "GSU2" float32 spectra[3·R³·111] (the server's cache: exact);
  *   "GSQ2" uint16 spectra quantised to 1/65535, each stored less its linear prediction from the two samples
- *          before it (mod 2¹⁶), which compresses better; the server sends it gzip-compressed (about 6 MB,
+ *          before it (mod 2¹⁶), which compresses better; the server sends it gzip-compressed (about 7 MB,
  *          for the browser's live preview).
  */
 import methodJson from '../../data/upsample/method.json';
@@ -24,7 +25,7 @@ import { linearSrgbToXyz } from './colour';
 import { tristimulusWeights } from './integrate';
 import { lhtss, type ColourRows, type LhtssState } from './lhtss';
 import { cieIlluminant } from './lights';
-import { GRID_SIZE } from './policy';
+import { ESTIMATE_SIZE, weightsToEstimateGrid } from './policy';
 import type { Rgb3 } from './types';
 
 /** The tabulated estimate. */
@@ -32,7 +33,7 @@ export interface UpsampleTable {
   readonly resolution: number;
   readonly version: number;
   readonly zNodes: Float32Array;
-  /** reflectance 0..1 of every node on the working grid: node k's GRID_SIZE values from k·GRID_SIZE */
+  /** reflectance 0..1 of every node on the estimate's grid: node k's ESTIMATE_SIZE values from k·ESTIMATE_SIZE */
   readonly spectra: Float32Array;
 }
 
@@ -48,10 +49,10 @@ export function zNodesFor(resolution: number): Float32Array {
   return Float32Array.from({ length: resolution }, (_, k) => smoothstep(smoothstep(k / (resolution - 1))));
 }
 
-/** The colour rows of the estimate: CIE 1931 2° tristimulus weights of D65 on the grid (integrate.ts). */
+/** The colour rows of the estimate: CIE 1931 2° tristimulus weights of D65 (integrate.ts) on the estimate's grid. */
 export function estimateRows(): ColourRows {
   const w = tristimulusWeights(cieIlluminant('D65'));
-  return [w.x, w.y, w.z];
+  return [weightsToEstimateGrid(w.x), weightsToEstimateGrid(w.y), weightsToEstimateGrid(w.z)];
 }
 
 /**
@@ -61,14 +62,14 @@ export function estimateRows(): ColourRows {
  * luminance, which is what LHTSS tends to there.
  */
 export function estimateNode(rows: ColourRows, rgb: Rgb3, start?: LhtssState): { reflectance: Float64Array; state?: LhtssState } {
-  if (rgb[0] <= 0 && rgb[1] <= 0 && rgb[2] <= 0) return { reflectance: new Float64Array(GRID_SIZE) };
+  if (rgb[0] <= 0 && rgb[1] <= 0 && rgb[2] <= 0) return { reflectance: new Float64Array(ESTIMATE_SIZE) };
   const xyz = linearSrgbToXyz(rgb);
   let r = lhtss(rows, xyz, start);
   if (!r.converged && start) r = lhtss(rows, xyz);
   if (r.converged) return { reflectance: r.reflectance, state: r.state };
   let white = 0;
-  for (let i = 0; i < GRID_SIZE; i++) white += rows[1][i];
-  return { reflectance: new Float64Array(GRID_SIZE).fill(Math.min(1, Math.max(0, xyz[1] / white))) };
+  for (let i = 0; i < ESTIMATE_SIZE; i++) white += rows[1][i];
+  return { reflectance: new Float64Array(ESTIMATE_SIZE).fill(Math.min(1, Math.max(0, xyz[1] / white))) };
 }
 
 /**
@@ -78,7 +79,7 @@ export function estimateNode(rows: ColourRows, rgb: Rgb3, start?: LhtssState): {
 export function buildUpsampleTable(resolution: number = UPSAMPLE_METHOD.resolution): UpsampleTable {
   const R = resolution;
   const zNodes = zNodesFor(R);
-  const spectra = new Float32Array(3 * R * R * R * GRID_SIZE);
+  const spectra = new Float32Array(3 * R * R * R * ESTIMATE_SIZE);
   const rows = estimateRows();
   const start = Math.floor(R / 5);
   const rgb: Rgb3 = [0, 0, 0];
@@ -96,7 +97,7 @@ export function buildUpsampleTable(resolution: number = UPSAMPLE_METHOD.resoluti
             rgb[(l + 2) % 3] = y * z;
             const e = estimateNode(rows, rgb, state);
             state = e.state;
-            spectra.set(e.reflectance, (((l * R + zi) * R + yi) * R + xi) * GRID_SIZE);
+            spectra.set(e.reflectance, (((l * R + zi) * R + yi) * R + xi) * ESTIMATE_SIZE);
           }
         };
         walk(start, R, 1);
@@ -198,7 +199,7 @@ function writeHeader(view: DataView, magic: string, table: UpsampleTable): numbe
   for (let i = 0; i < 4; i++) view.setUint8(i, magic.charCodeAt(i));
   view.setUint32(4, table.resolution, true);
   view.setUint32(8, table.version, true);
-  view.setUint32(12, GRID_SIZE, true);
+  view.setUint32(12, ESTIMATE_SIZE, true);
   let o = HEADER;
   for (const v of table.zNodes) {
     view.setFloat32(o, v, true);
@@ -222,10 +223,10 @@ export function encodeUpsampleTableCompact(table: UpsampleTable): Uint8Array {
   const buf = new ArrayBuffer(HEADER + 4 * table.zNodes.length + 2 * n);
   const view = new DataView(buf);
   let o = writeHeader(view, 'GSQ2', table);
-  for (let k = 0; k < n; k += GRID_SIZE) {
+  for (let k = 0; k < n; k += ESTIMATE_SIZE) {
     let p1 = 0;
     let p2 = 0;
-    for (let i = 0; i < GRID_SIZE; i++, o += 2) {
+    for (let i = 0; i < ESTIMATE_SIZE; i++, o += 2) {
       const q = Math.round(Math.min(1, Math.max(0, table.spectra[k + i])) * 65535);
       view.setUint16(o, (q - predict(i, p1, p2)) & 0xffff, true);
       p2 = p1;
@@ -244,8 +245,8 @@ export function decodeUpsampleTable(bytes: Uint8Array, expectVersion: number = U
   const R = view.getUint32(4, true);
   const version = view.getUint32(8, true);
   if (version !== expectVersion) throw new Error(`upsample table: version ${version}, expected ${expectVersion}`);
-  if (view.getUint32(12, true) !== GRID_SIZE) throw new Error('upsample table: another wavelength grid');
-  const n = 3 * R * R * R * GRID_SIZE;
+  if (view.getUint32(12, true) !== ESTIMATE_SIZE) throw new Error('upsample table: another wavelength grid');
+  const n = 3 * R * R * R * ESTIMATE_SIZE;
   const bytesPer = magic === 'GSU2' ? 4 : 2;
   if (bytes.byteLength !== HEADER + 4 * R + bytesPer * n) throw new Error('upsample table: wrong size');
   const zNodes = new Float32Array(R);
@@ -255,10 +256,10 @@ export function decodeUpsampleTable(bytes: Uint8Array, expectVersion: number = U
   if (magic === 'GSU2') {
     spectra.set(new Float32Array(bytes.slice(o, o + 4 * n).buffer));
   } else {
-    for (let k = 0; k < n; k += GRID_SIZE) {
+    for (let k = 0; k < n; k += ESTIMATE_SIZE) {
       let p1 = 0;
       let p2 = 0;
-      for (let i = 0; i < GRID_SIZE; i++, o += 2) {
+      for (let i = 0; i < ESTIMATE_SIZE; i++, o += 2) {
         const q = (predict(i, p1, p2) + view.getUint16(o, true)) & 0xffff;
         spectra[k + i] = q / 65535;
         p2 = p1;

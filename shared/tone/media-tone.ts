@@ -83,6 +83,8 @@ const TABLE: Record<string, Entry> = {
   'orthochromatic': classic(80),
   panchromatic: modern(250),
   'panchromatic-extended-red': modern(200),
+  // box speed of the infrared emulsion as rated under daylight without a filter (model value)
+  infrared: classic(200),
   'silicon-ir-cut': {
     kind: 'sensor',
     family: 'sensor',

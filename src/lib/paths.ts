@@ -82,6 +82,10 @@ export const apiPaths = {
         tones: (q: URLSearchParams = new URLSearchParams()) => `${base}/boards/${id}/tones${query(q)}`,
       }),
       swatches: () => `${base}/swatches`,
+      /** POST multipart (`file`, `department`, `boardId`): one measured swatch per sample of a CGATS.17 file */
+      swatchImport: () => `${base}/swatches/import`,
+      /** the same upload, answered with what would be added; writes nothing */
+      swatchImportPreview: () => `${base}/swatches/import/preview`,
       swatch: (id: number) => ({
         root: () => `${base}/swatches/${id}`,
         tones: () => `${base}/swatches/${id}/tones`,

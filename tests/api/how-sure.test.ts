@@ -4,6 +4,7 @@
  * uncertainty tables (POST …/photo-uncertainty, polled at GET …/photo-uncertainty/:key).
  * Documented in docs/api-simulate.md, docs/api-bench.md, docs/api-sheets.md and docs/api-photos.md.
  */
+import { ESTIMATE_SIZE, GRID_END_NM, GRID_START_NM } from '../../shared/spectral/policy';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import type { BoardTones, LookTones, SwatchTone, ToneRange } from '../../shared/schemas/board';
@@ -13,8 +14,8 @@ import { createTestLook, TEST_LOOK } from './photo-fixtures';
 
 /** Default tolerance of this file, stops (floating point only: ranges hold the estimate by construction). */
 const TOL = 1e-9;
-/** The working grid: 380–780 nm at 5 nm, 81 samples (shared/spectral/policy.ts). */
-const GRID_SAMPLES = 81;
+/** The grid the metamer programs range over: the estimate's grid, 350–900 nm at 5 nm (shared/spectral/policy.ts). */
+const GRID_SAMPLES = ESTIMATE_SIZE;
 /** Nodes per axis of a photo uncertainty table (shared/photo/uncertainty-table.ts, as the live preview's table). */
 const UNCERTAINTY_SIZE = 33;
 /** Middle grey (common practice). */
@@ -73,7 +74,7 @@ describe('POST /api/simulate: range and extremes', () => {
     }
   });
 
-  it('answers the reflectances at the possible range\'s ends only when asked, as 81 [nm, ρ] pairs in 0..1', async () => {
+  it('answers the reflectances at the possible range\'s ends only when asked, as [nm, ρ] pairs on the estimate grid in 0..1', async () => {
     const r = await lab.post('/api/simulate').send({ ...body, extremes: true });
     expect(r.status).toBe(200);
     const [grey, ...estimated] = r.body.swatches as { name: string; range: { extremes?: { low: [number, number][]; high: [number, number][] } } }[];
@@ -83,8 +84,8 @@ describe('POST /api/simulate: range and extremes', () => {
       expect(e, s.name).toBeDefined();
       for (const side of [e.low, e.high]) {
         expect(side).toHaveLength(GRID_SAMPLES);
-        expect(side[0][0]).toBe(380);
-        expect(side[GRID_SAMPLES - 1][0]).toBe(780);
+        expect(side[0][0]).toBe(GRID_START_NM);
+        expect(side[GRID_SAMPLES - 1][0]).toBe(GRID_END_NM);
         for (const [, v] of side) {
           expect(v).toBeGreaterThanOrEqual(0);
           expect(v).toBeLessThanOrEqual(1);

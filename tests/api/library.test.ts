@@ -3,14 +3,15 @@
  * in a named basis, parametric filters, a light through a gel; roles; a bad file names its line and writes
  * nothing; a curve used by a look cannot be deleted.
  */
+import { GRID_SIZE } from '../../shared/spectral/policy';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import { Curve } from '../../server/db/entities/curve.entity';
 
 /** One shared tolerance for this file: values are exact decimal inputs, read back after float arithmetic. */
 const TOL = 1e-6;
-/** The working grid has 81 samples (380–780 nm at 5 nm; DESIGN.md §3). */
-const GRID_SAMPLES = 81;
+/** The working grid's samples (350–900 nm at 1 nm; shared/spectral/policy.ts). */
+const GRID_SAMPLES = GRID_SIZE;
 /** Optical density D means transmittance 10^−D (definition of optical density). */
 const T_OF_DENSITY = (d: number) => 10 ** -d;
 

@@ -2,6 +2,7 @@
  * Looks: create, read, update, duplicate, delete; role denials; bad input with nothing written; the bench's
  * analysis (curves, filter factor for the look's light and for daylight and tungsten).
  */
+import { GRID_SIZE } from '../../shared/spectral/policy';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import { Look } from '../../server/db/entities/look.entity';
@@ -15,8 +16,8 @@ const CYAN_DAYLIGHT_STOPS = 1;
 const CYAN_TUNGSTEN_EXTRA_STOPS = 2 / 3;
 /** Looser, ¼ stop, as in the engine's own reference test: the extra is a difference of two estimates. */
 const TOL_EXTRA_STOPS = 1 / 4;
-/** The working grid: 380–780 nm at 5 nm (DESIGN.md §3; CIE 015 practice). */
-const GRID_SAMPLES = 81;
+/** The working grid: 350–900 nm at 1 nm (shared/spectral/policy.ts; CIE 015:2018 1 nm summation). */
+const GRID_SAMPLES = GRID_SIZE;
 
 let t: TestApp;
 let owner: Agent;

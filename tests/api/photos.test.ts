@@ -1,4 +1,5 @@
 import fs from 'node:fs';
+import { GRID_SIZE } from '../../shared/spectral/policy';
 import path from 'node:path';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -190,8 +191,8 @@ describe('the live preview’s look', () => {
     const r = await lab.post(`/api/productions/${pid}/photo-looks`).send({ lookId });
     expect(r.status).toBe(200);
     const l = r.body.look;
-    expect(l.nm).toHaveLength(81);
-    expect(l.light.values).toHaveLength(81);
+    expect(l.nm).toHaveLength(GRID_SIZE);
+    expect(l.light.values).toHaveLength(GRID_SIZE);
     expect(l.light.edit).toMatchObject({ kind: 'blackbody', kelvin: 3200 });
     expect(l.filters[0]).toMatchObject({ on: 'lens', edit: { form: 'longPass', param: 'cutOnNm', nm: 590 } });
     expect(mediumToneDefaults(l.mediumToneId).known).toBe(true);

@@ -1,4 +1,5 @@
 import fs from 'node:fs';
+import { GRID_SIZE } from '../../shared/spectral/policy';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, type TestApp, type Agent } from '../helpers/api';
 import { decodeUpsampleTable, UPSAMPLE_METHOD } from '../../shared/spectral/upsample-table';
@@ -78,17 +79,17 @@ describe('POST /api/simulate', () => {
 });
 
 describe('GET /api/library', () => {
-  it('lists lights, filters and media with ids, names, descriptions, kind and 81-sample curves', async () => {
+  it('lists lights, filters and media with ids, names, descriptions, kind and curves on the working grid', async () => {
     const r = await a.get('/api/library');
     expect(r.status).toBe(200);
-    expect(r.body.grid).toEqual({ startNm: 380, endNm: 780, stepNm: 5 });
+    expect(r.body.grid).toEqual({ startNm: 350, endNm: 900, stepNm: 1 }); // shared/spectral/policy.ts
     const kinds = new Set(r.body.items.map((i: { kind: string }) => i.kind));
     expect([...kinds].sort()).toEqual(['filter', 'light', 'medium']);
     for (const i of r.body.items) {
       expect(typeof i.id).toBe('string');
       expect(i.name.length).toBeGreaterThan(0);
       expect(i.description.length).toBeGreaterThan(0);
-      expect(i.values).toHaveLength(81);
+      expect(i.values).toHaveLength(GRID_SIZE);
     }
     expect(r.body.upsample.source).toMatch(/Jakob and J\. Hanika/);
   });

@@ -2,6 +2,7 @@
  * Swatches: from a colour (hex, RGB, L*a*b*) or a measured file; department rules for contributors; bad
  * input with nothing written; the tones of one swatch through every look.
  */
+import { GRID_SIZE } from '../../shared/spectral/policy';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import { Swatch } from '../../server/db/entities/swatch.entity';
@@ -36,7 +37,7 @@ describe('the makeup member adds a lip colour and sees its zone through each loo
     expect(r.status).toBe(201);
     id = r.body.swatch.id;
     expect(r.body.swatch).toMatchObject({ department: 'makeup', hex: '#9e2b35', spectrum: 'estimated' });
-    expect(r.body.swatch.reflectance).toHaveLength(81);
+    expect(r.body.swatch.reflectance).toHaveLength(GRID_SIZE);
   });
 
   it('reads darker through the red-absorbing cyan than without it (a red absorbs what the cyan passes)', async () => {

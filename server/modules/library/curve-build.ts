@@ -1,6 +1,7 @@
 /**
  * A curve's origin as given → its samples on the grid in the engine's basis, and a line saying where it
- * came from. Tables are read by the shared CSV reader and converted by the engine's basis readers;
+ * came from. Tables are read by the shared readers (a CSV-like table, or one sample of a CGATS.17 / Argyll
+ * file, shared/import/spectral-table.ts) and converted by the engine's basis readers;
  * parametric filters and lights through gels are made by the engine's own resolvers.
  */
 import type { EntityManager } from 'typeorm';
@@ -41,7 +42,7 @@ export async function buildCurve(em: EntityManager, productionId: number, kind: 
     );
     const nm = table.pairs.map((p) => p[0]);
     const range = `${Math.min(...nm)}–${Math.max(...nm)} nm`;
-    const from = table.fileName ? `uploaded file ${table.fileName}` : 'pairs given through the API';
+    const from = `${table.fileName ? `uploaded file ${table.fileName}` : table.cgats ? 'uploaded file' : 'pairs given through the API'}${table.cgats ? ` (${table.cgats.fileType}, sample "${table.cgats.sampleName}"${table.cgats.sampleCount > 1 ? ` of ${table.cgats.sampleCount}` : ''})` : ''}`;
     return {
       origin: { type: 'table', basis: o.basis, fileName: table.fileName, pairs: table.pairs, headers: table.headers.slice(0, 10) },
       samples: round(spectrum),

@@ -142,7 +142,7 @@ export function renderSheetPdf(sheet: ExposureSheet): Promise<Buffer> {
       { text: formatFactor(f.factor), w: 50, align: 'right' },
     ]);
   }
-  font(false, 7.5, C.mute).text('F = sum(E·S) / sum(E·T·S) over 380–780 nm on this medium; stops = log2 F. Open up by this much.', L, y + 4, opts({ width: colW }));
+  font(false, 7.5, C.mute).text('F = sum(E·S) / sum(E·T·S) over 350–900 nm on this medium; stops = log2 F. Open up by this much.', L, y + 4, opts({ width: colW }));
   const leftEnd = doc.y;
 
   y = top;

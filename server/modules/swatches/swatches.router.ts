@@ -1,11 +1,37 @@
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
 import { handle, productionRoute, pid, idParam, itemRoutes } from '../route-registry';
 import { departmentSchema } from '../../../shared/schemas/roles';
-import { swatchCreateSchema, swatchUpdateSchema } from '../../../shared/schemas/swatch';
+import { MAX_IMPORT_BYTES, swatchCreateSchema, swatchImportFieldsSchema, swatchUpdateSchema } from '../../../shared/schemas/swatch';
+import { AppError, InvalidError } from '../../errors';
 import { SwatchesService } from './swatches.service';
 import { ToneService } from '../tones/tone.service';
+
+/** One spectrophotometer file in the multipart part `file` (kept in memory, at most MAX_IMPORT_BYTES), plus the form fields. */
+const uploadMeasurements: RequestHandler = (req, res, next) => {
+  if (!req.is('multipart/form-data')) return next(new InvalidError('Send the measurements as multipart/form-data, the file in a part named "file".', 'file'));
+  multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_IMPORT_BYTES, files: 1, fields: 4, fieldSize: 1024, parts: 6 } }).single('file')(req, res, (err: unknown) => {
+    if (!err) return next();
+    if (err instanceof multer.MulterError) {
+      if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'too_large', `The file is larger than the ${MAX_IMPORT_BYTES / 1024 / 1024} MB limit.`, 'file'));
+      return next(new InvalidError(`The upload is not one measurement file in a part named "file" (${err.code.toLowerCase().replace(/_/g, ' ')}).`, 'file'));
+    }
+    next(err);
+  });
+};
+
+/** The import's file and form fields, checked (400 naming the field). */
+function importInput(req: Parameters<RequestHandler>[0]) {
+  if (!req.file) throw new InvalidError('Choose a spectrophotometer file (CGATS.17 text, .ti3 or .sp) in the part named "file".', 'file');
+  const fields = swatchImportFieldsSchema.safeParse(req.body ?? {});
+  if (!fields.success) {
+    const i = fields.error.issues[0];
+    throw new InvalidError(`${i.path.join('.')}: ${i.message}`, i.path.join('.'));
+  }
+  return { file: req.file, fields: fields.data };
+}
 
 /** Swatches: viewers read; contributors add and edit their own department's; editors and owners any. */
 export function swatchesRouter(ctx: AppContext): Router {
@@ -19,6 +45,14 @@ export function swatchesRouter(ctx: AppContext): Router {
   }));
   productionRoute(r, ctx, 'post', '/swatches', 'contributor', validate(swatchCreateSchema), handle(async (req, res) => {
     res.status(201).json({ swatch: await svc.create(req.membership!, req.body) });
+  }));
+  productionRoute(r, ctx, 'post', '/swatches/import/preview', 'contributor', uploadMeasurements, handle(async (req, res) => {
+    const { file, fields } = importInput(req);
+    res.json({ preview: await svc.importPreview(req.membership!, file, fields) });
+  }));
+  productionRoute(r, ctx, 'post', '/swatches/import', 'contributor', uploadMeasurements, handle(async (req, res) => {
+    const { file, fields } = importInput(req);
+    res.status(201).json({ swatches: await svc.importFile(req.membership!, file, fields) });
   }));
   productionRoute(r, ctx, 'get', '/swatches/:swatchId/tones', 'viewer', handle(async (req, res) => {
     res.json(await tones.swatchTones(pid(req), idParam(req.params.swatchId, 'Swatch')));

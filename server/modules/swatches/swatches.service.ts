@@ -1,17 +1,19 @@
 import { Look } from '../../db/entities/look.entity';
+import { Board } from '../../db/entities/board.entity';
+import { InvalidError } from '../../errors';
+import { previewOf, resolveImport, uploadText, type ImportUpload } from './swatch-import';
 import { authoredView } from '../authored';
 import { findInProduction } from '../../db/in-production';
 import type { DataSource, EntityManager } from 'typeorm';
 import { Swatch } from '../../db/entities/swatch.entity';
 import type { Membership } from '../../db/entities/membership.entity';
-import { reflectanceFromPairs } from '../../../shared/spectral/bases';
-import { toPairs } from '../../../shared/spectral/spectrum';
 import type { Department } from '../../../shared/schemas/roles';
-import { swatchCreateSchema, swatchUpdateSchema, type SwatchOrigin, type SwatchView } from '../../../shared/schemas/swatch';
+import { swatchCreateSchema, swatchImportFieldsSchema, swatchUpdateSchema, type SwatchImportPreview, type SwatchOrigin, type SwatchView } from '../../../shared/schemas/swatch';
 import type { z } from 'zod';
-import { readTable, withTableErrors } from '../library/table-input';
+import { readTable } from '../library/table-input';
+import { measuredFromTable } from './measured-swatch';
 import { assertDepartmentAccess } from '../../policy/department-access';
-import { hexOfColour, hexOfReflectance } from './swatch-colour';
+import { hexOfColour } from './swatch-colour';
 import { estimatedPairs } from '../tones/swatch-spectra';
 import { getUpsampleTable } from '../../services/upsample-table';
 import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
@@ -19,21 +21,13 @@ import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
 type CreateInput = z.infer<typeof swatchCreateSchema>;
 type UpdateInput = z.infer<typeof swatchUpdateSchema>;
 type OriginInput = CreateInput['origin'];
-
-/** Rounds grid values for storage (reflectance to 6 decimals is far below any measurement's noise). */
-const round6 = (v: number) => Math.round(v * 1e6) / 1e6;
+type ImportFields = z.infer<typeof swatchImportFieldsSchema>;
 
 /** Turns an origin as given into what a swatch stores: origin, display hex, measured reflectance or null. */
 export function resolveSwatchOrigin(o: OriginInput, field = 'origin'): { origin: SwatchOrigin; hex: string; reflectance: [number, number][] | null } {
   if (o.type === 'colour') return { origin: { type: 'colour', colour: o.colour }, hex: hexOfColour(o.colour, `${field}.colour`), reflectance: null };
   if (o.type === 'photo') return { origin: { type: 'photo', photoId: o.photoId, rect: o.rect, colour: o.colour }, hex: hexOfColour(o.colour, `${field}.colour`), reflectance: null };
-  const table = readTable(o.table, `${field}.table`);
-  const r = withTableErrors(table, `${field}.table`, (pairs) => reflectanceFromPairs(pairs, o.basis));
-  return {
-    origin: { type: 'measured', basis: o.basis, fileName: table.fileName, points: table.pairs.length },
-    hex: hexOfReflectance(r),
-    reflectance: toPairs(r).map(([nm, v]) => [nm, round6(v)]),
-  };
+  return measuredFromTable(readTable(o.table, `${field}.table`), o.basis, `${field}.table`);
 }
 
 /** A swatch for the API; with `table`, its reflectance (measured, or the estimate) is included. */
@@ -84,6 +78,53 @@ export class SwatchesService {
     const resolved = resolveSwatchOrigin(input.origin);
     const s = await em.save(Swatch, em.create(Swatch, { production: m.production, department, name: input.name, notes: input.notes, ...resolved, createdBy: m.user }));
     return swatchView(s, await this.table());
+  }
+
+  /**
+   * Where imported swatches go: the department (given, else the board's, else the importer's) and the board,
+   * which must be the production's; the department rule applies to both (403). Nothing is written.
+   */
+  private async importTarget(m: Membership, fields: ImportFields, em: EntityManager): Promise<{ board: Board | null; department: Department }> {
+    let board: Board | null = null;
+    if (fields.boardId !== undefined) {
+      board = await em.findOne(Board, { where: { id: fields.boardId, production: { id: m.production.id } }, relations: { swatches: true } });
+      if (!board) throw new InvalidError(`boardId: board ${fields.boardId} is not in this production`, 'boardId');
+      assertDepartmentAccess(m, board.department, 'boards');
+    }
+    const department = fields.department ?? board?.department ?? m.department;
+    assertDepartmentAccess(m, department, 'swatches');
+    return { board, department };
+  }
+
+  /** Reads a spectrophotometer file and answers what an import would add; writes nothing. */
+  async importPreview(m: Membership, upload: ImportUpload, fields: ImportFields): Promise<SwatchImportPreview> {
+    const { text, fileName } = uploadText(upload);
+    await this.importTarget(m, fields, this.ds.manager);
+    const { file, samples } = resolveImport(text, fileName);
+    return previewOf(file, samples);
+  }
+
+  /**
+   * One measured swatch per sample of a spectrophotometer file, put on the board if one is named; all or
+   * nothing (every sample is resolved first, and the writes share one transaction).
+   */
+  async importFile(m: Membership, upload: ImportUpload, fields: ImportFields): Promise<SwatchView[]> {
+    const { text, fileName } = uploadText(upload);
+    const saved = await this.ds.transaction(async (t) => {
+      const { board, department } = await this.importTarget(m, fields, t);
+      const { samples } = resolveImport(text, fileName);
+      const rows: Swatch[] = [];
+      for (const r of samples) {
+        rows.push(await t.save(Swatch, t.create(Swatch, { production: m.production, department, name: r.name, notes: r.notes, origin: r.origin, hex: r.hex, reflectance: r.reflectance, createdBy: m.user })));
+      }
+      if (board) {
+        board.swatches = [...board.swatches, ...rows];
+        await t.save(board);
+      }
+      return rows;
+    });
+    const table = await this.table();
+    return saved.map((s) => swatchView(s, table));
   }
 
   async update(m: Membership, id: number, input: UpdateInput) {

@@ -11,7 +11,7 @@ import { resolveFilter, resolveLight, resolveMedium, type LightPath, type Filter
 import { lookLightPath, type LookSpectra } from '../../../shared/look/compose-look';
 import { TONE_MEDIUM_IDS } from '../../../shared/tone/media-tone';
 import { SpectralInputError } from '../../../shared/spectral/errors';
-import { makeSpectrum, type Spectrum } from '../../../shared/spectral/spectrum';
+import { spectrumFromStoredPairs, type Spectrum } from '../../../shared/spectral/spectrum';
 import { libraryFilter, libraryLight, libraryMedium } from '../../../shared/spectral/library';
 import type { FilterRef, LightRef, MediumRef, CurveKind } from '../../../shared/schemas/curve';
 import type { FilterPlace, LookDefinition } from '../../../shared/schemas/look';
@@ -61,7 +61,7 @@ function curveSpectrum(curves: Map<number, Curve>, id: number, kind: CurveKind, 
   const c = curves.get(id);
   if (!c) throw new InvalidError(`${field}.curveId: there is no curve ${id} in this production's library`, `${field}.curveId`);
   if (c.kind !== kind) throw new InvalidError(`${field}.curveId: "${c.name}" is a ${c.kind}, not a ${kind}`, `${field}.curveId`);
-  return { spectrum: makeSpectrum(c.samples.map((p) => p[1])), label: c.name, source: `production library: ${c.source}`, libraryId: null, curveId: c.id };
+  return { spectrum: spectrumFromStoredPairs(c.samples, kind === 'medium' ? 'zero' : 'hold'), label: c.name, source: `production library: ${c.source}`, libraryId: null, curveId: c.id };
 }
 
 /** Runs an engine resolver; its refusal becomes a 400 on `field`.source…. */

@@ -5,7 +5,7 @@
  */
 import type { Swatch } from '../../db/entities/swatch.entity';
 import { reflectanceFromSrgb } from '../../../shared/spectral/compute';
-import { makeSpectrum, toPairs, type Spectrum } from '../../../shared/spectral/spectrum';
+import { spectrumFromStoredPairs, toPairs, type Spectrum } from '../../../shared/spectral/spectrum';
 import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
 
 const CACHE_MAX = 5000;
@@ -25,7 +25,7 @@ export function estimatedSpectrum(hex: string, table: UpsampleTable): Spectrum {
 
 /** A swatch's reflectance for the engine, and whether it is estimated. */
 export function swatchSpectrum(s: Pick<Swatch, 'hex' | 'reflectance'>, table: UpsampleTable): { reflectance: Spectrum; estimated: boolean } {
-  if (s.reflectance) return { reflectance: makeSpectrum(s.reflectance.map((p) => p[1])), estimated: false };
+  if (s.reflectance) return { reflectance: spectrumFromStoredPairs(s.reflectance, 'hold'), estimated: false };
   return { reflectance: estimatedSpectrum(s.hex, table), estimated: true };
 }
 

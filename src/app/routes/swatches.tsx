@@ -11,6 +11,8 @@ import { useDeleteSwatch } from '../../features/swatches/api/delete-swatch';
 import { SwatchForm } from '../../features/swatches/components/swatch-form';
 import { SwatchList } from '../../features/swatches/components/swatch-list';
 import { SwatchDetail } from '../../features/swatches/components/swatch-detail';
+import { SwatchImportForm } from '../../features/swatches/components/swatch-import-form';
+import { Button } from '../../components/ui/button';
 import { useBoards, boardsQueryOptions } from '../../features/boards/api/get-boards';
 import { AddToBoard } from '../../features/boards/components/add-to-board';
 import { mayAddItems, mayChangeDepartmentItem, roleAtLeast } from '../../../shared/policy/department';
@@ -20,6 +22,7 @@ export default function SwatchesPage() {
   const qc = useQueryClient();
   const { member } = useMember(pid);
   const [selected, setSelected] = useState(0);
+  const [importing, setImporting] = useState(false);
   const list = useSwatches(pid);
   const create = useCreateSwatch(pid);
   const remove = useDeleteSwatch(pid);
@@ -43,6 +46,25 @@ export default function SwatchesPage() {
             <SwatchDetail pid={pid} swatch={sel}>
               <AddToBoard key={sel.id} pid={pid} swatchId={sel.id} boards={myBoards} />
             </SwatchDetail>
+          )}
+          {member && mayAddItems(member) && (
+            <Card>
+              <div className="flex items-center justify-between gap-2">
+                <h2>Import measured file</h2>
+                <Button aria-expanded={importing} onClick={() => setImporting((v) => !v)}>{importing ? 'Close' : 'Import measured file'}</Button>
+              </div>
+              {importing && (
+                <div className="mt-3">
+                  <SwatchImportForm
+                    pid={pid}
+                    myDepartment={member.department}
+                    anyDepartment={roleAtLeast(member.role, 'editor')}
+                    boards={myBoards}
+                    onImported={(added) => { qc.invalidateQueries({ queryKey: boardsQueryOptions(pid).queryKey }); if (added[0]) setSelected(added[0].id); }}
+                  />
+                </div>
+              )}
+            </Card>
           )}
           {member && mayAddItems(member) ? (
             <Card>

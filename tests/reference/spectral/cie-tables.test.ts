@@ -1,9 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { CIE_TABLES } from '../../../shared/spectral/cie';
-import { GRID_NM } from '../../../shared/spectral/grid';
+import observerTable from '../../../data/cie/cie-1931-2deg.json';
+import { CIE_TABLES, CMF } from '../../../shared/spectral/cie';
+import { gridIndexOf } from '../../../shared/spectral/grid';
+import { GRID_END_NM, GRID_START_NM, OBSERVER_RANGE_NM } from '../../../shared/spectral/policy';
 import { whitePoint } from '../../../shared/spectral/integrate';
 import { cieIlluminant, D50_CCT_K, D65_CCT_K, daylight, illuminantARelative } from '../../../shared/spectral/lights';
 import { valueAt } from '../../../shared/spectral/spectrum';
+import { GRID_NM } from '../../../shared/spectral/grid';
 
 /** Default tolerance of this file: ±0.01 on the 0..100 XYZ scale (the figure the white points are quoted to). */
 const TOL_XYZ = 0.01;
@@ -23,6 +26,8 @@ const TOL_A_RELATIVE = 1e-3;
 const TOL_DAYLIGHT_RELATIVE = 0.002;
 /** colord prints D50 to 3 decimals: allow half a unit in the last place on top (reason for the looser check). */
 const D50_TABLE_ROUNDING = 0.0005;
+/** The interpolated observer at the table's own nodes: exact up to rounding (the last node, 830 nm, is reached at the end of the last interval). */
+const TOL_NODE = 1e-15;
 
 describe('CIE white points computed from the tables (CIE 015:2018)', () => {
   it.each([
@@ -48,17 +53,38 @@ describe('illuminant A by its defining formula (CIE 015:2018) vs the colord tabl
 });
 
 describe('CIE daylight from S0, S1, S2 (CIE 015:2018 formula) vs the tabulated D illuminants', () => {
-  const compare = (cctK: number, name: 'D65' | 'D50', absolute: number) => {
+  // Compared at the tables' own 5 nm nodes, where each table has data and the grid reaches (D65: 350–830 nm of
+  // its 300–830; D50: its 380–780): between nodes both sides are only interpolations, beyond a table nothing
+  // was published to compare with.
+  const compare = (cctK: number, name: 'D65' | 'D50', absolute: number, expectedNodes: number) => {
     const made = daylight(cctK);
     const t = CIE_TABLES[name];
     const madeAt560 = valueAt(made, 560);
-    for (const nm of GRID_NM) {
-      const idx = Math.round((nm - t.startNm) / t.stepNm);
-      const tab = t.values[idx];
+    let nodes = 0;
+    t.values.forEach((tab, idx) => {
+      const nm = t.startNm + idx * t.stepNm;
+      if (nm < GRID_START_NM || nm > GRID_END_NM) return;
+      expect(gridIndexOf(nm), `${nm} nm is a grid wavelength`).toBeGreaterThanOrEqual(0);
       const ours = valueAt(made, nm) / madeAt560;
       expect(Math.abs(ours - tab), `${name} at ${nm} nm`).toBeLessThanOrEqual(TOL_DAYLIGHT_RELATIVE * tab + absolute);
-    }
+      nodes++;
+    });
+    expect(nodes).toBe(expectedNodes);
   };
-  it('6504 K reproduces the D65 table within 0.2 % per sample', () => compare(D65_CCT_K, 'D65', 0));
-  it('5003 K reproduces the D50 table within 0.2 % per sample (plus the table’s 3-decimal rounding)', () => compare(D50_CCT_K, 'D50', D50_TABLE_ROUNDING));
+  it('6504 K reproduces the D65 table within 0.2 % per sample (its 97 nodes 350–830 nm)', () => compare(D65_CCT_K, 'D65', 0, 97));
+  it('5003 K reproduces the D50 table within 0.2 % per sample (its 81 nodes 380–780 nm; plus the table’s 3-decimal rounding)', () =>
+    compare(D50_CCT_K, 'D50', D50_TABLE_ROUNDING, 81));
+});
+
+describe('the CIE 1931 2° observer on the 1 nm working grid (CIE 015:2018 table, Sprague per CIE 167:2005)', () => {
+  it('equals the published 5 nm table at its nodes, 360–830 nm, and is zero outside that range', () => {
+    const { startNm, stepNm, values } = observerTable;
+    for (const c of ['x', 'y', 'z'] as const) {
+      values[c].forEach((v, k) => expect(Math.abs(CMF[c].values[gridIndexOf(startNm + k * stepNm)] - v), `${c} at ${startNm + k * stepNm} nm`).toBeLessThanOrEqual(TOL_NODE));
+      GRID_NM.forEach((nm, i) => {
+        if (nm < OBSERVER_RANGE_NM[0] || nm > OBSERVER_RANGE_NM[1]) expect(CMF[c].values[i], `${c} at ${nm} nm`).toBe(0);
+      });
+    }
+    expect([startNm, startNm + stepNm * (values.y.length - 1)]).toEqual([...OBSERVER_RANGE_NM]);
+  });
 });

@@ -76,3 +76,50 @@ export function median(values: number[]): number {
   const s = [...values].sort((a, b) => a - b);
   return s[Math.floor(s.length / 2)];
 }
+
+/**
+ * The estimate Grisaille used before (W. Jakob and J. Hanika, "A Low-Dimensional Function Space for
+ * Efficient Spectral Upsampling", Computer Graphics Forum 38(2), 2019): ρ = ½ + x / (2√(1 + x²)) with
+ * x = c0·t² + c1·t + c2, t = (λ − 380 nm) / 400 nm, fitted to a colour's XYZ under D65 by Gauss–Newton —
+ * kept here, written from the paper, only as the baseline the current estimate is measured against.
+ * Returns the reflectance on the working grid, or null when the fit does not reach the colour.
+ */
+export function sigmoidEstimate(xyz: readonly [number, number, number], rows: readonly [Float64Array, Float64Array, Float64Array], grid: Float64Array): Float64Array | null {
+  const t = Float64Array.from(grid, (nm) => (nm - 380) / 400);
+  const rho = (c: number[]) => Float64Array.from(t, (ti) => {
+    const x = c[0] * ti * ti + c[1] * ti + c[2];
+    return 0.5 + x / (2 * Math.sqrt(1 + x * x));
+  });
+  const xyzOf = (r: Float64Array) => rows.map((row) => row.reduce((s, w, i) => s + w * r[i], 0));
+  let c = [0, 0, 0];
+  const scale = Math.max(1, xyz[1]);
+  for (let it = 0; it < 200; it++) {
+    const f = xyzOf(rho(c)).map((v, k) => v - xyz[k]);
+    if (Math.hypot(...f) < 1e-7 * scale) return rho(c);
+    const J = [0, 1, 2].map((j) => {
+      const d = [...c];
+      d[j] += 1e-6;
+      const g = xyzOf(rho(d));
+      return g.map((v, k) => (v - xyz[k] - f[k]) / 1e-6);
+    }); // J[j][k] = ∂XYZ_k/∂c_j
+    const m = [0, 1, 2].map((k) => [J[0][k], J[1][k], J[2][k]]);
+    const det = m[0][0] * (m[1][1] * m[2][2] - m[1][2] * m[2][1]) - m[0][1] * (m[1][0] * m[2][2] - m[1][2] * m[2][0]) + m[0][2] * (m[1][0] * m[2][1] - m[1][1] * m[2][0]);
+    if (!Number.isFinite(det) || Math.abs(det) < 1e-300) return null;
+    const solve = (col: number) => {
+      const mm = m.map((row, r) => row.map((v, k) => (k === col ? -f[r] : v)));
+      return (mm[0][0] * (mm[1][1] * mm[2][2] - mm[1][2] * mm[2][1]) - mm[0][1] * (mm[1][0] * mm[2][2] - mm[1][2] * mm[2][0]) + mm[0][2] * (mm[1][0] * mm[2][1] - mm[1][1] * mm[2][0])) / det;
+    };
+    const step = [solve(0), solve(1), solve(2)];
+    let lambda = 1;
+    const f0 = Math.hypot(...f);
+    for (let h = 0; h < 30; h++) {
+      const next = c.map((v, j) => v + lambda * step[j]);
+      if (Math.hypot(...xyzOf(rho(next)).map((v, k) => v - xyz[k])) < f0) {
+        c = next;
+        break;
+      }
+      lambda /= 2;
+    }
+  }
+  return null;
+}

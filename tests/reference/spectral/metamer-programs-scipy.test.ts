@@ -2,10 +2,13 @@
  * The metamer programs of metamer-range.ts (solved by our bounded simplex, bounded-simplex.ts) against an
  * independent solver run inside the test: SciPy's `linprog`, method 'highs' (the HiGHS solver; Debian
  * python3-scipy 1.10.1). Each program is: min and max of cᵀx subject to A·x = b, 0 ≤ x ≤ 1, with
- *   possible:  A = the engine's D65 tristimulus weight rows (3 × 81), x = the reflectance on the grid,
- *              c = a look's medium weights (m = Σ wᵢ·ρᵢ);
- *   plausible: A = those rows times the hat basis (3 × knots), x = the knot values, c = hatᵀ·w,
- *              at each knot spacing the engine may try (60, 30, 15, 7.5 nm; `plausibleProgram`);
+ *   possible:  A = the engine's D65 tristimulus weight rows carried to the estimate's grid (3 × 111,
+ *              350–900 nm at 5 nm; `weightsToEstimateGrid`, the transpose of the linear interpolation that
+ *              takes a reflectance there to the 1 nm working grid), x = the reflectance on the estimate's grid,
+ *              c = a look's medium weights carried the same way (`estimateWeights`; m = Σ wₑ·ρₑ);
+ *   plausible: A = the rows of `plausibleProgram` (those rows times the hat basis, 3 × knots), x = the knot
+ *              values, c = hatᵀ·estimateWeights(w), with `hat` ESTIMATE_SIZE × knots, at each knot spacing the
+ *              engine may try (60, 30, 15, 7.5 nm; `plausibleProgram`);
  * and b = a colour's XYZ under D65, for 32 colours (estimated sRGB colours including the primaries and
  * secondaries, published measured surfaces, two narrow bands outside sRGB) through 4 built-in looks, plus
  * two colours no reflectance has (both solvers must find none).
@@ -20,8 +23,8 @@ import { reflectanceFromSrgb } from '../../../shared/spectral/estimate';
 import { GRID_NM } from '../../../shared/spectral/grid';
 import { tristimulusWeights } from '../../../shared/spectral/integrate';
 import { cieIlluminant } from '../../../shared/spectral/lights';
-import { exposureRange, PLAUSIBLE_KNOT_NM, plausibleProgram, plausibleRange, xyzD65 } from '../../../shared/spectral/metamer-range';
-import { GRID_SIZE, GRID_STEP_NM } from '../../../shared/spectral/policy';
+import { estimateWeights, exposureRange, PLAUSIBLE_KNOT_NM, plausibleProgram, plausibleRange, xyzD65 } from '../../../shared/spectral/metamer-range';
+import { ESTIMATE_SIZE, ESTIMATE_STEP_NM, weightsToEstimateGrid } from '../../../shared/spectral/policy';
 import type { Xyz } from '../../../shared/spectral/types';
 import { upsampleTable } from '../../unit/spectral/fixtures';
 import { builtInLook, measuredSurfaces, type BuiltInLook } from './measured-surfaces';
@@ -35,9 +38,9 @@ const M_FLOOR = 1e-3;
 /** SciPy linprog status codes (scipy.optimize.linprog documentation, SciPy 1.10): 0 optimal, 2 infeasible. */
 const OPTIMAL = 0;
 const INFEASIBLE = 2;
-/** The knot spacings the engine tries, nm (metamer-range.ts halves PLAUSIBLE_KNOT_NM while above the grid step). */
+/** The knot spacings the engine tries, nm (metamer-range.ts halves PLAUSIBLE_KNOT_NM while above the estimate grid's step). */
 const SPACINGS: number[] = [];
-for (let k = PLAUSIBLE_KNOT_NM; k > GRID_STEP_NM; k /= 2) SPACINGS.push(k);
+for (let k = PLAUSIBLE_KNOT_NM; k > ESTIMATE_STEP_NM; k /= 2) SPACINGS.push(k);
 
 const SOLVER = String.raw`
 import json, sys
@@ -71,9 +74,9 @@ interface Answer {
 
 const close = (ours: number, ref: number) => Math.abs(ours - ref) <= TOL_REL * Math.max(Math.abs(ref), M_FLOOR);
 
-// The colour rows, as the engine integrates XYZ under D65 (integrate.ts)
+// The colour rows, as the engine integrates XYZ under D65 (integrate.ts), carried to the estimate's grid
 const D65 = tristimulusWeights(cieIlluminant('D65'));
-const EYE_ROWS = [...D65.x, ...D65.y, ...D65.z];
+const EYE_ROWS = [...weightsToEstimateGrid(D65.x), ...weightsToEstimateGrid(D65.y), ...weightsToEstimateGrid(D65.z)];
 
 // Colours: estimated sRGB (primaries and secondaries are the most saturated), measured surfaces, narrow bands
 const colours: { label: string; xyz: Xyz }[] = [];
@@ -136,12 +139,15 @@ beforeAll(() => {
   for (const colour of [...colours, ...IMPOSSIBLE]) {
     for (const look of LOOKS) {
       const w = look.path.mediumWeights;
+      const we = estimateWeights(w); // the exposure of ρₑ on the estimate's grid is weᵀρₑ
+      expect(we).toHaveLength(ESTIMATE_SIZE);
       const c: Case = { colour: colour.label, look, xyz: colour.xyz, weights: w, possible: problems.length, plausible: [] };
-      problems.push({ a: EYE_ROWS, b: [...colour.xyz], c: [...w] });
+      problems.push({ a: EYE_ROWS, b: [...colour.xyz], c: [...we] });
       for (const p of programs) {
-        // c = hatᵀ·w: the exposure of the reflectance hat·k is wᵀ(hat·k)
+        // c = hatᵀ·wₑ: the exposure of the reflectance hat·k is wₑᵀ(hat·k)
+        expect(p.hat).toHaveLength(ESTIMATE_SIZE * p.knots);
         const cw = new Array<number>(p.knots).fill(0);
-        for (let i = 0; i < GRID_SIZE; i++) for (let k = 0; k < p.knots; k++) cw[k] += w[i] * p.hat[i * p.knots + k];
+        for (let i = 0; i < ESTIMATE_SIZE; i++) for (let k = 0; k < p.knots; k++) cw[k] += we[i] * p.hat[i * p.knots + k];
         c.plausible.push(problems.length);
         problems.push({ a: [...p.rows], b: [...colour.xyz], c: cw });
       }
@@ -164,7 +170,7 @@ describe('metamer programs vs SciPy linprog (HiGHS)', () => {
       const ref = answers[c.possible];
       const what = `${c.colour} through ${c.look.label}`;
       expect(ref.status, what).toEqual([OPTIMAL, OPTIMAL]);
-      const ours = boundedExtremes({ a: Float64Array.from(EYE_ROWS), rows: 3, n: GRID_SIZE, b: c.xyz }, c.weights);
+      const ours = boundedExtremes({ a: Float64Array.from(EYE_ROWS), rows: 3, n: ESTIMATE_SIZE, b: c.xyz }, estimateWeights(c.weights));
       expect(ours, what).not.toBeNull();
       expect(close(ours!.min.value, ref.min!), `${what}: min ${ours!.min.value} vs ${ref.min}`).toBe(true);
       expect(close(ours!.max.value, ref.max!), `${what}: max ${ours!.max.value} vs ${ref.max}`).toBe(true);
@@ -187,8 +193,8 @@ describe('metamer programs vs SciPy linprog (HiGHS)', () => {
       const first = feasible.indexOf(true);
       for (const i of c.plausible) expect([OPTIMAL, INFEASIBLE], what).toContain(answers[i].status[0]);
       if (first < 0) {
-        // no smooth reflectance at any spacing: the engine answers the grid itself, the possible range
-        expect(ours!.knotNm, what).toBe(GRID_STEP_NM);
+        // no smooth reflectance at any spacing: the engine answers the estimate's grid itself, the possible range
+        expect(ours!.knotNm, what).toBe(ESTIMATE_STEP_NM);
         const ref = answers[c.possible];
         expect(close(ours!.range[0], ref.min!) && close(ours!.range[1], ref.max!), what).toBe(true);
       } else {
@@ -206,7 +212,7 @@ describe('metamer programs vs SciPy linprog (HiGHS)', () => {
   it('a colour no reflectance 0..1 has: both solvers find no solution', () => {
     for (const c of cases.filter((x) => IMPOSSIBLE.some((k) => k.label === x.colour))) {
       expect(answers[c.possible].status, c.colour).toEqual([INFEASIBLE, INFEASIBLE]);
-      expect(boundedExtremes({ a: Float64Array.from(EYE_ROWS), rows: 3, n: GRID_SIZE, b: c.xyz }, c.weights), c.colour).toBeNull();
+      expect(boundedExtremes({ a: Float64Array.from(EYE_ROWS), rows: 3, n: ESTIMATE_SIZE, b: c.xyz }, estimateWeights(c.weights)), c.colour).toBeNull();
       expect(plausibleRange(c.xyz, c.weights), c.colour).toBeNull();
     }
   });

@@ -14,6 +14,11 @@ const WIEN_M_K = C2_M_K / 4.965114231744276;
 const D65_XY = [0.3127, 0.329];
 /** The daylight-locus formula and the tabulated D65 differ by about 1e-4 in y (looser, for that reason). */
 const TOL_XY = 2e-4;
+/**
+ * Illuminant A at 350 nm relative to 900 nm, from its defining formula (CIE 015:2018: a Planckian
+ * radiator at 2848 K with c2 = 1.435e-2 m·K), (900/350)^5 · (e^(c2/(900 nm·T)) − 1) / (e^(c2/(350 nm·T)) − 1).
+ */
+const A_350_OVER_900 = (900 / 350) ** 5 * (Math.expm1(1.435e-2 / (900e-9 * 2848)) / Math.expm1(1.435e-2 / (350e-9 * 2848))); // ≈ 0.01692
 
 describe('lights', () => {
   it('a blackbody peaks where Wien says (5000 K → 579.6 nm)', () => {
@@ -34,10 +39,12 @@ describe('lights', () => {
     expect(() => daylight(30000)).toThrow(/4000–25000 K/);
     expect(() => blackbody(500)).toThrow(SpectralInputError);
   });
-  it('illuminant A by formula is normalised to a peak of 1 and rises through the visible', () => {
+  it('illuminant A by formula is normalised to a peak of 1 and rises across the whole grid', () => {
     const a = illuminantA();
-    expect(a.values[80]).toBe(1);
-    expect(a.values[0]).toBeLessThan(0.15);
+    // Wien: a 2848 K radiator peaks near 1017 nm, beyond the grid, so the peak is at its end (900 nm)
+    expect(a.values[GRID_NM.length - 1]).toBe(1);
+    for (let i = 1; i < GRID_NM.length; i++) expect(a.values[i]).toBeGreaterThan(a.values[i - 1]);
+    expect(Math.abs(a.values[0] - A_350_OVER_900)).toBeLessThan(TOL);
   });
   it('the LED model has its blue emitter and phosphor band', () => {
     const led = whiteLed({ emitterNm: 450, emitterWidthNm: 22, phosphorNm: 572, phosphorWidthNm: 135, phosphorRatio: 0.6 });
@@ -81,7 +88,9 @@ describe('media', () => {
     const e = mediumFromModel({ basis: 'energy', lobes: [{ centreNm: 500, widthNm: 1000, weight: 1 }] });
     const q = mediumFromModel({ basis: 'quantum', lobes: [{ centreNm: 500, widthNm: 1e6, weight: 1 }] });
     expect(Math.max(...e.values)).toBe(1);
-    expect(Math.abs(q.values[0] - 380 / 780)).toBeLessThan(1e-6);
+    // flat quantum efficiency → energy sensitivity ∝ λ, peak at the grid's end (900 nm)
+    expect(Math.abs(q.values[0] - 350 / 900)).toBeLessThan(1e-6);
+    expect(Math.abs(q.values[GRID_NM.length - 1] - 1)).toBeLessThan(1e-6);
   });
   it('the eye is ȳ with its peak at 555 nm', () => {
     const y = eyeMedium();

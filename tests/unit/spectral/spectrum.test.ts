@@ -14,11 +14,11 @@ const cover = (f: (nm: number) => number, step = 10): [number, number][] => Arra
 const errorOf = (fn: () => unknown) => thrown(SpectralInputError, fn);
 
 describe('reading [nm, value] pairs', () => {
-  it('accepts any order and spacing and resamples onto the 81-sample grid (linear inside, constant outside)', () => {
+  it('accepts any order and spacing and resamples onto the 551-sample grid (linear inside, constant outside)', () => {
     const s = spectrumFromPairs([[700, 0.7], [400, 0.4], [550, 0.55], [420, 0.42]]);
     expect(s.values).toHaveLength(GRID_SIZE);
-    expect(valueAt(s, 380)).toBeCloseTo(0.4, 12); // held constant below 400 nm
-    expect(valueAt(s, 780)).toBeCloseTo(0.7, 12); // held constant above 700 nm
+    expect(valueAt(s, 350)).toBeCloseTo(0.4, 12); // held constant below 400 nm, to the grid's start
+    expect(valueAt(s, 900)).toBeCloseTo(0.7, 12); // held constant above 700 nm, to the grid's end
     expect(Math.abs(valueAt(s, 485) - (0.42 + ((485 - 420) / 130) * 0.13))).toBeLessThanOrEqual(TOL);
   });
 
@@ -55,11 +55,26 @@ describe('bases', () => {
     expect(errorOf(() => filterFromPairs(cover(() => 50))).reason).toMatch(/basis "percent"/);
   });
   it('media: log10 and quantum bases convert to relative energy sensitivity, peak 1', () => {
+    // data 380–780 nm; a medium is zero beyond its data (policy.ts)
     const log = mediumFromPairs(cover((nm) => (nm - 780) / 400), 'log10'); // rises 10× over the range
     expect(Math.max(...log.values)).toBeCloseTo(1, 12);
-    expect(log.values[0]).toBeCloseTo(0.1, 12);
+    expect(valueAt(log, 380)).toBeCloseTo(0.1, 12);
+    expect(valueAt(log, 780)).toBeCloseTo(1, 12);
     const q = mediumFromPairs(cover(() => 0.6), 'quantum'); // flat QE → energy basis ∝ λ
-    GRID_NM.forEach((nm, i) => expect(Math.abs(q.values[i] - nm / 780)).toBeLessThanOrEqual(TOL));
+    GRID_NM.forEach((nm, i) => expect(Math.abs(q.values[i] - (nm >= 380 && nm <= 780 ? nm / 780 : 0))).toBeLessThanOrEqual(TOL));
+  });
+  it('media are zero beyond their data; lights, filters and reflectances hold their end values (policy.ts)', () => {
+    const pairs = cover((nm) => 0.2 + (nm - 380) / 1000);
+    const m = mediumFromPairs(pairs);
+    for (const nm of [350, 379, 781, 900]) expect(valueAt(m, nm)).toBe(0);
+    expect(valueAt(m, 380)).toBeGreaterThan(0);
+    const l = lightFromPairs(pairs);
+    const f = filterFromPairs(pairs);
+    const r = reflectanceFromPairs(pairs);
+    for (const s of [l, f, r]) {
+      expect(valueAt(s, 350)).toBe(valueAt(s, 380));
+      expect(valueAt(s, 900)).toBe(valueAt(s, 780));
+    }
   });
   it('media: log10 values may be negative; energy values may not', () => {
     expect(() => mediumFromPairs(cover(() => -1), 'log10')).not.toThrow();
@@ -92,6 +107,8 @@ describe('spectra are values', () => {
     expect(() => multiply(fine, coarse)).toThrow(/resample/);
     const r = resample(coarse);
     expect(valueAt(r, 480)).toBeCloseTo(1.5, 12);
-    expect(toPairs(r)[0]).toEqual([380, 1]);
+    expect(toPairs(r)[0]).toEqual([350, 1]); // the grid starts at 350 nm; the first value held below 380
+    expect(toPairs(r)[30]).toEqual([380, 1]);
+    expect(toPairs(r)[GRID_SIZE - 1]).toEqual([900, 3]);
   });
 });

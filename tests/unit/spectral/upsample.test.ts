@@ -8,6 +8,7 @@ import { blendedReflectance } from '../../../shared/spectral/node-spectra';
 import { eyeMedium } from '../../../shared/spectral/media';
 import { lhtss } from '../../../shared/spectral/lhtss';
 import { decodeUpsampleTable, encodeUpsampleTable, encodeUpsampleTableCompact, estimateNode, estimateRows, UPSAMPLE_METHOD } from '../../../shared/spectral/upsample-table';
+import { ESTIMATE_SIZE, ESTIMATE_STEP_NM, GRID_SIZE, estimateToGrid } from '../../../shared/spectral/policy';
 import { upsampleTable } from './fixtures';
 
 /** Default tolerance of this file. */
@@ -64,8 +65,13 @@ describe('the table of node spectra', () => {
     const xi = 5;
     const yi = 9;
     const r = blendedReflectance(table, [z, (xi / (R - 1)) * z, (yi / (R - 1)) * z]).values; // slice l = 0 (red largest)
-    const at = (((0 * R + zi) * R + yi) * R + xi) * r.length;
-    for (let i = 0; i < r.length; i++) expect(Math.abs(r[i] - table.spectra[at + i])).toBeLessThan(TOL);
+    // nodes are tabulated on the estimate's grid (111 samples, 5 nm); the blend is on the working grid (551, 1 nm)
+    expect(r).toHaveLength(GRID_SIZE);
+    const at = (((0 * R + zi) * R + yi) * R + xi) * ESTIMATE_SIZE;
+    const node = table.spectra.subarray(at, at + ESTIMATE_SIZE);
+    for (let k = 0; k < ESTIMATE_SIZE; k++) expect(Math.abs(r[k * ESTIMATE_STEP_NM] - node[k])).toBeLessThan(TOL); // at the 5 nm nodes
+    const between = estimateToGrid(node); // and linear between them (policy.ts)
+    for (let i = 0; i < r.length; i++) expect(Math.abs(r[i] - between[i])).toBeLessThan(TOL);
   });
 });
 

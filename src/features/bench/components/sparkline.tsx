@@ -1,4 +1,4 @@
-/** A small spectral sparkline: values on the 380–780 nm grid, scaled to their peak (or to 1 for transmittances). */
+/** A small spectral sparkline: values on the 350–900 nm grid, scaled to their peak (or to 1 for transmittances). */
 export function Sparkline({ values, fixedMax, label, width = 120, height = 28 }: { values: number[]; fixedMax?: number; label: string; width?: number; height?: number }) {
   if (!values.length) return null;
   const top = fixedMax ?? Math.max(1e-12, ...values);

@@ -21,7 +21,7 @@ export function SpectraChart({ analysis, height = 280 }: { analysis: LookAnalysi
       <ResponsiveContainer width="100%" height={height}>
         <LineChart data={data} margin={{ top: 8, right: 12, bottom: 4, left: 0 }}>
           <CartesianGrid stroke="#e3dfd5" strokeDasharray="2 3" />
-          <XAxis dataKey="nm" type="number" domain={[380, 780]} ticks={[400, 450, 500, 550, 600, 650, 700, 750]} tick={{ fontSize: 11 }} unit=" nm" />
+          <XAxis dataKey="nm" type="number" domain={[350, 900]} ticks={[400, 500, 600, 700, 800, 900]} tick={{ fontSize: 11 }} unit=" nm" />
           <YAxis domain={[0, 1]} ticks={[0, 0.25, 0.5, 0.75, 1]} tick={{ fontSize: 11 }} width={36} />
           <Tooltip isAnimationActive={false} formatter={(v) => (typeof v === 'number' ? v.toFixed(3) : v)} labelFormatter={(nm) => `${nm} nm`} />
           <Legend wrapperStyle={{ fontSize: 12 }} />
@@ -34,7 +34,7 @@ export function SpectraChart({ analysis, height = 280 }: { analysis: LookAnalysi
           })}
         </LineChart>
       </ResponsiveContainer>
-      <figcaption className="mt-1 text-xs text-ink-mute">Light, medium, eye and product scaled to a peak of 1; filters as transmittance 0..1. 380–780 nm.</figcaption>
+      <figcaption className="mt-1 text-xs text-ink-mute">Light, medium, eye and product scaled to a peak of 1; filters as transmittance 0..1. 350–900 nm (the eye sees 360–830).</figcaption>
     </figure>
   );
 }

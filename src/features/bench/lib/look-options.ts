@@ -6,7 +6,7 @@ export interface PathOption {
   label: string;
   group: 'Built-in' | 'This production';
   description?: string;
-  /** 81 values on the grid, for the sparkline */
+  /** values on the working grid, for the sparkline */
   values: number[];
 }
 

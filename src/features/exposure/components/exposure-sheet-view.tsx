@@ -105,7 +105,7 @@ export function ExposureSheetView({ s }: { s: ExposureSheet }) {
               ))}
             </tbody>
           </table>
-          <p className="mt-1 text-[11px] text-ink-mute">F = ΣE·S / ΣE·T·S over 380–780 nm on this medium; stops = log₂ F. Open up by this much.</p>
+          <p className="mt-1 text-[11px] text-ink-mute">F = ΣE·S / ΣE·T·S over 350–900 nm on this medium; stops = log₂ F. Open up by this much.</p>
         </section>
         <section data-testid="sheet-ei-chain">
           <H>Exposure-index chain</H>

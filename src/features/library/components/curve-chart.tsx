@@ -8,7 +8,7 @@ export interface ChartSeries {
 
 const COLOURS = ['#1b1a18', '#c2410c', '#1d5c7a', '#3f9a5a', '#7a5bb0', '#b08a1f'];
 
-/** One or a few curves on 380–780 nm (values as given; `yMax` fixes the scale, e.g. 1 for transmittance). No animation. */
+/** One or a few curves on 350–900 nm (values as given; `yMax` fixes the scale, e.g. 1 for transmittance). No animation. */
 export function CurveChart({ series, yLabel, yMax, height = 220 }: { series: ChartSeries[]; yLabel: string; yMax?: number; height?: number }) {
   const nms = [...new Set(series.flatMap((s) => s.pairs.map((p) => p[0])))].sort((a, b) => a - b);
   const maps = series.map((s) => new Map(s.pairs));

@@ -3,7 +3,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { ErrorMessage } from '../../../components/ui/alert';
 import { CURVE_BASES, CURVE_BASIS_LABELS, curveCreateSchema, type CurveBasis, type CurveCreateInput, type CurveKind } from '../../../../shared/schemas/curve';
-import { CurveTableError, parseCurveTable } from '../../../../shared/import/curve-table';
+import { cgatsSampleList, isSpectralTableError, readSpectralTable, type SpectralTable } from '../../../../shared/import/spectral-table';
 import { filterFromPairs, lightFromPairs, mediumFromPairs, type FilterBasis, type MediumBasis } from '../../../../shared/spectral/bases';
 import { SpectralInputError } from '../../../../shared/spectral/errors';
 import { toPairs } from '../../../../shared/spectral/spectrum';
@@ -16,35 +16,40 @@ interface Props {
   onSubmit: (input: CurveCreateInput, reset: () => void) => void;
 }
 
-type Preview = { raw: [number, number][]; grid: [number, number][]; headers: string[]; decimalComma: boolean } | { error: string };
+type Preview = { raw: [number, number][]; grid: [number, number][]; headers: string[]; decimalComma: boolean; cgats: SpectralTable['cgats'] } | { error: string };
 
-/** Reads the table the way the server will (the shared reader and the engine's basis conversion) for a preview. */
-function previewOf(text: string, kind: CurveKind, basis: CurveBasis, valueColumn: number): Preview {
+/** Reads the table the way the server will (the shared readers and the engine's basis conversion) for a preview. */
+function previewOf(text: string, kind: CurveKind, basis: CurveBasis, valueColumn: number, sample: string): Preview {
   try {
-    const t = parseCurveTable(text, { valueColumn });
+    const t = readSpectralTable(text, { valueColumn, sample: sample || undefined });
     try {
       const s = kind === 'filter' ? filterFromPairs(t.pairs, basis as FilterBasis) : kind === 'medium' ? mediumFromPairs(t.pairs, basis as MediumBasis) : lightFromPairs(t.pairs);
-      return { raw: t.pairs, grid: toPairs(s), headers: t.headers, decimalComma: t.decimalComma };
+      return { raw: t.pairs, grid: toPairs(s), headers: t.headers, decimalComma: t.decimalComma, cgats: t.cgats };
     } catch (e) {
       if (!(e instanceof SpectralInputError)) throw e;
       const i = typeof e.path[0] === 'number' ? e.path[0] : -1;
-      return { error: `${i >= 0 ? `line ${t.lines[i]}: ` : ''}${e.reason}` };
+      return { error: `${i >= 0 ? `line ${t.lines[i]}${t.fields?.[i] ? `, field ${t.fields[i]}` : ''}: ` : ''}${e.reason}` };
     }
   } catch (e) {
-    if (e instanceof CurveTableError) return { error: e.message };
+    if (isSpectralTableError(e)) return { error: e.message };
     throw e;
   }
 }
 
-/** Upload a CSV, TSV or semicolon table of wavelength and value, choose its basis, see it charted, then save. */
+/**
+ * Upload a CSV, TSV or semicolon table of wavelength and value, or a CGATS.17 / Argyll file (one sample, or the
+ * sample chosen), choose its basis, see it charted, then save.
+ */
 export function CurveUploadForm({ pending, error, onSubmit }: Props) {
   const [kind, setKind] = useState<CurveKind>('filter');
   const [basis, setBasis] = useState<CurveBasis>('transmittance');
   const [text, setText] = useState<string | null>(null);
   const [fileName, setFileName] = useState('');
   const [column, setColumn] = useState(2);
+  const [sample, setSample] = useState('');
+  const samples = text !== null ? cgatsSampleList(text) : null;
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const preview = text !== null ? previewOf(text, kind, basis, column - 1) : null;
+  const preview = text !== null ? previewOf(text, kind, basis, column - 1, sample) : null;
   const serverErrors = apiFieldError(error);
 
   function submit(e: FormEvent<HTMLFormElement>) {
@@ -55,7 +60,7 @@ export function CurveUploadForm({ pending, error, onSubmit }: Props) {
       kind,
       name: String(f.get('name') ?? ''),
       notes: String(f.get('notes') ?? ''),
-      origin: { type: 'table', basis, table: { text: text ?? '', fileName: fileName || undefined, valueColumn: column - 1 } },
+      origin: { type: 'table', basis, table: { text: text ?? '', fileName: fileName || undefined, ...(samples ? { sample: sample || undefined } : { valueColumn: column - 1 }) } },
     };
     const parsed = curveCreateSchema.safeParse(input);
     if (!parsed.success) return setErrors(zodFieldErrors(parsed.error));
@@ -66,6 +71,7 @@ export function CurveUploadForm({ pending, error, onSubmit }: Props) {
       form.reset();
       setText(null);
       setFileName('');
+      setSample('');
     });
   }
   const fileError = errors['origin.table.text'] ?? serverErrors['origin.table.text'];
@@ -85,11 +91,20 @@ export function CurveUploadForm({ pending, error, onSubmit }: Props) {
       <TextField label="Name" name="name" error={errors.name ?? serverErrors.name} placeholder="e.g. Lab's own pale green gel" />
       <div className="grid gap-3 sm:grid-cols-[1fr_auto]">
         <label className="flex flex-col gap-1 text-xs font-medium uppercase tracking-wide text-ink-soft">
-          File: CSV, TSV or semicolons; wavelength in nm first; header rows and decimal commas are fine
-          <input type="file" accept=".csv,.tsv,.txt,text/csv,text/plain" className="text-sm normal-case" aria-invalid={!!fileError}
-            onChange={async (e) => { const file = e.target.files?.[0]; setFileName(file?.name ?? ''); setText(file ? await file.text() : null); }} />
+          File: CSV, TSV or semicolons (wavelength in nm first; header rows and decimal commas are fine), or CGATS.17 / .ti3 / .sp
+          <input type="file" accept=".csv,.tsv,.txt,.cgats,.ti3,.sp,text/csv,text/plain" className="text-sm normal-case" aria-invalid={!!fileError}
+            onChange={async (e) => { const file = e.target.files?.[0]; setFileName(file?.name ?? ''); setSample(''); setText(file ? await file.text() : null); }} />
         </label>
-        <TextField label="Value column" type="number" min={2} max={20} value={column} onChange={(e) => setColumn(Math.max(2, Number(e.target.value) || 2))} />
+        {samples ? (
+          samples.length > 1 && (
+            <SelectField label="Sample" value={sample} onChange={(e) => setSample(e.target.value)}>
+              <option value="">choose one of {samples.length}</option>
+              {samples.map((s, i) => <option key={i} value={s.id}>{s.name}{s.id !== s.name ? ` (${s.id})` : ''}</option>)}
+            </SelectField>
+          )
+        ) : (
+          <TextField label="Value column" type="number" min={2} max={20} value={column} onChange={(e) => setColumn(Math.max(2, Number(e.target.value) || 2))} />
+        )}
       </div>
       {(fileError ?? (preview && 'error' in preview ? preview.error : null)) && (
         <p role="alert" className="text-sm text-warn">{fileName ? `${fileName}: ` : ''}{fileError ?? (preview && 'error' in preview ? preview.error : '')}</p>
@@ -99,6 +114,11 @@ export function CurveUploadForm({ pending, error, onSubmit }: Props) {
           <p className="mb-1 text-xs text-ink-mute">
             Preview: {preview.raw.length} points{preview.headers.length ? `, ${preview.headers.length} header line${preview.headers.length > 1 ? 's' : ''}` : ''}{preview.decimalComma ? ', decimal commas' : ''}. As read, and on the working grid in the engine's basis.
           </p>
+          {preview.cgats && (
+            <p className="mb-1 text-xs text-ink-mute">
+              {preview.cgats.fileType} file, sample “{preview.cgats.sampleName}”. The file's values look like {preview.cgats.percent ? 'percent' : 'fractions'} ({preview.cgats.assumption}) — the basis chosen above decides.
+            </p>
+          )}
           <CurveChart series={[{ label: `as read (${CURVE_BASIS_LABELS[basis]})`, pairs: preview.raw }]} yLabel={CURVE_BASIS_LABELS[basis]} height={160} />
           <CurveChart series={[{ label: kind === 'filter' ? 'transmittance 0..1' : 'relative, peak 1', pairs: preview.grid }]} yLabel={kind === 'filter' ? 'transmittance' : 'relative'} yMax={kind === 'filter' ? 1 : undefined} height={160} />
         </div>

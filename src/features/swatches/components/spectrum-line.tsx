@@ -1,6 +1,6 @@
 import { GRID_END_NM, GRID_START_NM } from '../../../../shared/spectral/policy';
 
-/** A small SVG line of a spectrum (values 0..max over 380–780 nm), for previews. Not interactive. */
+/** A small SVG line of a spectrum (values 0..max over the working grid, 350–900 nm), for previews. Not interactive. */
 export function SpectrumLine({ pairs, max, width = 220, height = 60, label }: { pairs: [number, number][]; max?: number; width?: number; height?: number; label: string }) {
   if (!pairs.length) return null;
   const top = max ?? Math.max(1e-9, ...pairs.map((p) => p[1]));

@@ -22,7 +22,7 @@ export function SwatchDetail({ pid, swatch: sel, children }: { pid: number; swat
         <span className="h-12 w-12 shrink-0 rounded border border-paper-line" style={{ background: sel.hex }} aria-hidden="true" />
       </div>
       {sel.reflectance && <SpectrumLine pairs={sel.reflectance} max={1} width={320} label={`${sel.spectrum} reflectance of ${sel.name}`} />}
-      <p className="mt-1 text-xs text-ink-mute">{sel.spectrum === 'measured' ? 'Measured reflectance, 380–780 nm.' : 'Estimated reflectance: a smooth spectrum that gives this colour in daylight (D65). A measurement would be better.'}</p>
+      <p className="mt-1 text-xs text-ink-mute">{sel.spectrum === 'measured' ? 'Measured reflectance (350–900 nm; beyond the measurement its end values are held).' : 'Estimated reflectance: a smooth spectrum that gives this colour in daylight (D65). A measurement would be better.'}</p>
       <h3 className="mb-2 mt-4 text-sm font-semibold">Through each look</h3>
       {tones.isPending && <Spinner label="Computing…" />}
       <div className="grid grid-cols-2 gap-2">

@@ -4,7 +4,7 @@ import { SelectField, TextAreaField, TextField } from '../../../components/ui/fi
 import { ErrorMessage } from '../../../components/ui/alert';
 import { DEPARTMENTS, type Department } from '../../../../shared/schemas/roles';
 import { swatchCreateSchema, type SwatchCreateInput } from '../../../../shared/schemas/swatch';
-import { CurveTableError, parseCurveTable } from '../../../../shared/import/curve-table';
+import { isSpectralTableError, readSpectralTable } from '../../../../shared/import/spectral-table';
 import { reflectanceFromPairs } from '../../../../shared/spectral/bases';
 import { SpectralInputError } from '../../../../shared/spectral/errors';
 import { toPairs } from '../../../../shared/spectral/spectrum';
@@ -46,17 +46,17 @@ export function SwatchForm({ myDepartment, anyDepartment, pending, error, onSubm
   let preview: { pairs: [number, number][] } | { error: string } | null = null;
   if (mode === 'measured' && fileText !== null) {
     try {
-      const t = parseCurveTable(fileText);
+      const t = readSpectralTable(fileText);
       try {
         preview = { pairs: toPairs(reflectanceFromPairs(t.pairs, basis)) };
       } catch (e) {
         if (!(e instanceof SpectralInputError)) throw e;
         const i = typeof e.path[0] === 'number' ? e.path[0] : -1;
-        preview = { error: `${i >= 0 ? `line ${t.lines[i]}: ` : ''}${e.reason}` };
+        preview = { error: `${i >= 0 ? `line ${t.lines[i]}${t.fields?.[i] ? `, field ${t.fields[i]}` : ''}: ` : ''}${e.reason}` };
       }
     } catch (e) {
-      if (!(e instanceof CurveTableError)) throw e;
-      preview = { error: e.message };
+      if (!isSpectralTableError(e)) throw e;
+      preview = { error: `${e.message}${/samples/.test(e.message) ? ' (for a file of several samples use “Import measured file”)' : ''}` };
     }
   }
 
