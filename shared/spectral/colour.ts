@@ -2,7 +2,7 @@
  * Colour-space steps, done by culori 4 (sRGB per IEC 61966-2-1, CIE XYZ D65, CIE 1976 L*a*b*).
  * Engine convention: XYZ on the 0..100 scale (Y = 100 for white); culori works on 0..1.
  */
-import { converter, modeLab, modeLab65, modeLrgb, modeRgb, modeXyz65, parse, useMode, type Lab65, type Lrgb, type Rgb, type Xyz65 } from 'culori/fn';
+import { converter, modeLab, modeLab65, modeLrgb, modeRgb, modeXyz65, useMode, type Lab65, type Lrgb, type Xyz65 } from 'culori/fn';
 import { SpectralInputError } from './errors';
 import type { Lab3, Rgb3, Xyz } from './types';
 
@@ -30,8 +30,9 @@ export function hexToSrgb(hex: string): Rgb3 {
   if (typeof hex !== 'string' || !/^#([0-9a-f]{3}|[0-9a-f]{6})$/i.test(hex.trim())) {
     throw new SpectralInputError(`"${String(hex)}" is not an sRGB colour like #7f6a55`);
   }
-  const c = parse(hex.trim()) as Rgb;
-  return [c.r, c.g, c.b];
+  const h = hex.trim().slice(1);
+  const full = h.length === 3 ? h.replace(/./g, '$&$&') : h;
+  return [parseInt(full.slice(0, 2), 16) / 255, parseInt(full.slice(2, 4), 16) / 255, parseInt(full.slice(4, 6), 16) / 255];
 }
 
 /** Encoded sRGB 0..1 → '#rrggbb' (rounded, clamped). */

@@ -7,7 +7,7 @@
  * one dot product per node and look (`nodeExposures`) and then the same blend of node exposures.
  * Swatches and pixels therefore get the same number for the same colour.
  */
-import { ESTIMATE_SIZE, estimateToGrid, weightsToEstimateGrid } from './policy';
+import { ESTIMATE_SIZE, GRID_SIZE, estimateToGrid, weightsToEstimateGrid } from './policy';
 import { makeSpectrum, type Spectrum } from './spectrum';
 import { locateCell, type TableCell, type UpsampleTable } from './upsample-table';
 
@@ -50,6 +50,10 @@ export function cellCorners(table: UpsampleTable, cell: TableCell): { nodes: num
   return { nodes, weights };
 }
 
+const blendCell: TableCell = { node: 0, fx: 0, fy: 0, fz: 0 };
+const blendScratch = new Float64Array(ESTIMATE_SIZE);
+const gridScratch = new Float64Array(GRID_SIZE);
+
 /**
  * The estimated reflectance (0..1 on the working grid) of linear sRGB `rgb` (each 0..1, clamped): the
  * trilinear blend of its cell's corner node spectra, carried from the estimate's grid. Reproduces the
@@ -57,14 +61,13 @@ export function cellCorners(table: UpsampleTable, cell: TableCell): { nodes: num
  */
 export function blendedReflectance(table: UpsampleTable, rgb: readonly [number, number, number]): Spectrum {
   const refl = nodeReflectances(table);
-  const c = rgb.map((v) => Math.min(1, Math.max(0, v)));
-  const { nodes, weights } = cellCorners(table, locateCell(table, c[0], c[1], c[2]));
-  const out = new Float64Array(ESTIMATE_SIZE);
+  const { nodes, weights } = cellCorners(table, locateCell(table, rgb[0], rgb[1], rgb[2], blendCell));
+  blendScratch.fill(0);
   for (let j = 0; j < 8; j++) {
     const w = weights[j];
     if (w === 0) continue;
     const o = nodes[j] * ESTIMATE_SIZE;
-    for (let i = 0; i < ESTIMATE_SIZE; i++) out[i] += w * refl[o + i];
+    for (let i = 0; i < ESTIMATE_SIZE; i++) blendScratch[i] += w * refl[o + i];
   }
-  return makeSpectrum(estimateToGrid(out));
+  return makeSpectrum(estimateToGrid(blendScratch, gridScratch));
 }

@@ -162,14 +162,22 @@ export function onWorkingGrid(nm: ArrayLike<number>, values: ArrayLike<number>, 
   return out;
 }
 
+// each working-grid sample's lower estimate-grid node and its fraction towards the next (linear interpolation)
+const E_NODE = new Int32Array(GRID_SIZE);
+const E_FRAC = new Float64Array(GRID_SIZE);
+for (let i = 0; i < GRID_SIZE; i++) {
+  const t = (i * GRID_STEP_NM) / ESTIMATE_STEP_NM;
+  const k = Math.min(Math.floor(t), ESTIMATE_SIZE - 2);
+  E_NODE[i] = k;
+  E_FRAC[i] = t - k;
+}
+
 /** The estimate's grid values (ESTIMATE_SIZE) → the working grid, by linear interpolation (exact at its nodes). */
 export function estimateToGrid(values: ArrayLike<number>, out: Float64Array = new Float64Array(GRID_SIZE)): Float64Array {
-  const r = ESTIMATE_STEP_NM / GRID_STEP_NM;
   for (let i = 0; i < GRID_SIZE; i++) {
-    const t = i / r;
-    const k = Math.min(Math.floor(t), ESTIMATE_SIZE - 2);
-    const f = t - k;
-    out[i] = values[k] * (1 - f) + values[k + 1] * f;
+    const k = E_NODE[i];
+    const f = E_FRAC[i];
+    out[i] = values[k] + f * (values[k + 1] - values[k]);
   }
   return out;
 }
@@ -180,11 +188,9 @@ export function estimateToGrid(values: ArrayLike<number>, out: Float64Array = ne
  */
 export function weightsToEstimateGrid(weights: ArrayLike<number>): Float64Array {
   const out = new Float64Array(ESTIMATE_SIZE);
-  const r = ESTIMATE_STEP_NM / GRID_STEP_NM;
   for (let i = 0; i < GRID_SIZE; i++) {
-    const t = i / r;
-    const k = Math.min(Math.floor(t), ESTIMATE_SIZE - 2);
-    const f = t - k;
+    const k = E_NODE[i];
+    const f = E_FRAC[i];
     out[k] += weights[i] * (1 - f);
     out[k + 1] += weights[i] * f;
   }
