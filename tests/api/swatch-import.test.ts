@@ -6,6 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
+import { cgatsText, inventedFabric } from '../helpers/cgats';
 import { Swatch } from '../../server/db/entities/swatch.entity';
 import type { BoardView } from '../../shared/schemas/board';
 
@@ -24,27 +25,17 @@ let makeupBoard: BoardView;
 const count = () => t.ctx.ds.getRepository(Swatch).count();
 
 const nm = Array.from({ length: 31 }, (_, i) => 400 + 10 * i); // 400–700 nm at 10 nm
-/** A fabric's invented reflectance in percent: a smooth bump at `peak` nm over a floor. */
-const fabric = (floor: number, height: number, peak: number) => nm.map((w) => (floor + height * Math.exp(-(((w - peak) / 60) ** 2))).toFixed(2));
-
 /** Four invented fabrics in percent (no SPECTRAL_NORM: the reader must detect percent from the values). */
-const FABRICS = [
-  'CGATS.17',
-  'ORIGINATOR "Invented costume workroom"',
-  'DESCRIPTOR "Fabric swatches for the test (invented)"',
-  'CREATED "2026-11-30"',
-  `NUMBER_OF_FIELDS ${2 + nm.length}`,
-  'BEGIN_DATA_FORMAT',
-  `SAMPLE_ID SAMPLE_NAME ${nm.map((w) => `SPECTRAL_NM${w}`).join(' ')}`,
-  'END_DATA_FORMAT',
-  'NUMBER_OF_SETS 4',
-  'BEGIN_DATA',
-  `F1 "Wool coat, bottle green" ${fabric(4, 18, 530).join(' ')}`,
-  `F2 "Velvet waistcoat, wine" ${fabric(3, 30, 700).join(' ')}`,
-  `F3 "Shawl, faded blue" ${fabric(8, 25, 450).join(' ')}`,
-  `F4 "Grey flannel (flat)" ${nm.map(() => String(GREY_PERCENT)).join(' ')}`,
-  'END_DATA',
-].join('\n');
+const FABRICS = cgatsText(
+  ['ORIGINATOR "Invented costume workroom"', 'DESCRIPTOR "Fabric swatches for the test (invented)"', 'CREATED "2026-11-30"'],
+  nm,
+  [
+    ['F1', 'Wool coat, bottle green', inventedFabric(nm, 4, 18, 530)],
+    ['F2', 'Velvet waistcoat, wine', inventedFabric(nm, 3, 30, 700)],
+    ['F3', 'Shawl, faded blue', inventedFabric(nm, 8, 25, 450)],
+    ['F4', 'Grey flannel (flat)', nm.map(() => String(GREY_PERCENT))],
+  ],
+);
 /** The line of each set above (1-based). */
 const LINE_OF_F3 = 13;
 

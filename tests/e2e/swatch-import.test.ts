@@ -5,32 +5,22 @@
  */
 import { expect, it } from 'vitest';
 import { openSignedIn, shot, useAppAndBrowser } from '../helpers/browser';
+import { cgatsText, inventedFabric } from '../helpers/cgats';
 
 const env = useAppAndBrowser();
 
 const nm = Array.from({ length: 36 }, (_, i) => 380 + 10 * i); // 380–730 nm at 10 nm
-/** An invented fabric's reflectance in percent: a smooth bump at `peak` nm over a floor. */
-const fabric = (floor: number, height: number, peak: number) => nm.map((w) => (floor + height * Math.exp(-(((w - peak) / 55) ** 2))).toFixed(2)).join(' ');
-
 /** Invented fabrics (not real products), percent with SPECTRAL_NORM 100, as an instrument might export them. */
-const FABRICS = [
-  'CGATS.17',
-  'ORIGINATOR "Invented costume workroom"',
-  'DESCRIPTOR "Invented fabrics for the browser test"',
-  'KEYWORD "SPECTRAL_NORM"',
-  'SPECTRAL_NORM 100',
-  `NUMBER_OF_FIELDS ${2 + nm.length}`,
-  'BEGIN_DATA_FORMAT',
-  `SAMPLE_ID SAMPLE_NAME ${nm.map((w) => `SPECTRAL_NM${w}`).join(' ')}`,
-  'END_DATA_FORMAT',
-  'NUMBER_OF_SETS 4',
-  'BEGIN_DATA',
-  `T1 "Test serge, rust" ${fabric(5, 40, 640)}`,
-  `T2 "Test tweed, moss" ${fabric(6, 14, 540)}`,
-  `T3 "Test cotton, cornflower" ${fabric(10, 35, 460)}`,
-  `T4 "Test muslin, oat" ${fabric(45, 20, 620)}`,
-  'END_DATA',
-].join('\n');
+const FABRICS = cgatsText(
+  ['ORIGINATOR "Invented costume workroom"', 'DESCRIPTOR "Invented fabrics for the browser test"', 'KEYWORD "SPECTRAL_NORM"', 'SPECTRAL_NORM 100'],
+  nm,
+  [
+    ['T1', 'Test serge, rust', inventedFabric(nm, 5, 40, 640, 55)],
+    ['T2', 'Test tweed, moss', inventedFabric(nm, 6, 14, 540, 55)],
+    ['T3', 'Test cotton, cornflower', inventedFabric(nm, 10, 35, 460, 55)],
+    ['T4', 'Test muslin, oat', inventedFabric(nm, 45, 20, 620, 55)],
+  ],
+);
 const NAMES = ['Test serge, rust', 'Test tweed, moss', 'Test cotton, cornflower', 'Test muslin, oat'];
 
 it('the costume member imports a CGATS file of fabrics onto the costume board', async () => {

@@ -149,35 +149,31 @@ function colormathXyz(illuminant: string): Xyz[] {
   return JSON.parse(out) as Xyz[];
 }
 
+/** Checks every spectrum's XYZ against spec2cie's answers `ref` (same order) within TOL_ARGYLL; returns the largest difference. */
+function compareWithArgyll(ref: number[][], illuminant: (typeof ILLUMINANTS)[number]['name']): number {
+  expect(ref).toHaveLength(spectra.length);
+  let worst = 0;
+  spectra.forEach(({ label, s }, i) => {
+    const x = ours(s, illuminant);
+    for (let c = 0; c < 3; c++) {
+      expect(Math.abs(x[c] - ref[i][c]), `${label} ${'XYZ'[c]}: ours ${x[c]}, spec2cie ${ref[i][c]}`).toBeLessThanOrEqual(TOL_ARGYLL);
+      worst = Math.max(worst, Math.abs(x[c] - ref[i][c]));
+    }
+  });
+  return worst;
+}
+
 describe(`XYZ of ${spectra.length} generated spectra against reference implementations`, () => {
   it('uses at least 20 spectra', () => expect(spectra.length).toBeGreaterThanOrEqual(20));
 
   for (const ill of ILLUMINANTS) {
     it(`agree with Argyll spec2cie under ${ill.name} (its own table) within ${TOL_ARGYLL}`, () => {
-      const ref = argyllXyz(ill.argyll);
-      expect(ref).toHaveLength(spectra.length);
-      let worst = 0;
-      spectra.forEach(({ label, s }, i) => {
-        const x = ours(s, ill.name);
-        for (let c = 0; c < 3; c++) {
-          expect(Math.abs(x[c] - ref[i][c]), `${label} ${'XYZ'[c]}: ours ${x[c]}, spec2cie ${ref[i][c]}`).toBeLessThanOrEqual(TOL_ARGYLL);
-          worst = Math.max(worst, Math.abs(x[c] - ref[i][c]));
-        }
-      });
+      const worst = compareWithArgyll(argyllXyz(ill.argyll), ill.name);
       console.info(`spec2cie -i ${ill.argyll} (its table), 1 nm data: largest XYZ difference ${worst.toFixed(4)}`);
     });
 
     it(`agree with Argyll spec2cie given our own ${ill.name} at 1 nm (-i file.sp) within ${TOL_ARGYLL}`, () => {
-      const ref = argyllXyz(argyllIlluminantFile(ill.name));
-      expect(ref).toHaveLength(spectra.length);
-      let worst = 0;
-      spectra.forEach(({ label, s }, i) => {
-        const x = ours(s, ill.name);
-        for (let c = 0; c < 3; c++) {
-          expect(Math.abs(x[c] - ref[i][c]), `${label} ${'XYZ'[c]}: ours ${x[c]}, spec2cie ${ref[i][c]}`).toBeLessThanOrEqual(TOL_ARGYLL);
-          worst = Math.max(worst, Math.abs(x[c] - ref[i][c]));
-        }
-      });
+      const worst = compareWithArgyll(argyllXyz(argyllIlluminantFile(ill.name)), ill.name);
       console.info(`spec2cie -i (our ${ill.name}).sp, 1 nm data: largest XYZ difference ${worst.toFixed(4)}`);
     });
 
