@@ -24,6 +24,7 @@ import rateLimit from 'express-rate-limit';
 // ROUTER IMPORTS START
 import { exposureRouter } from './modules/exposure/exposure.router';
 import { simulateRouter } from './modules/simulate/simulate.router';
+import { shadeRouter } from './modules/shade/shade.router';
 import { libraryRouter } from './modules/library/library.router';
 import { looksRouter } from './modules/looks/looks.router';
 import { swatchesRouter } from './modules/swatches/swatches.router';
@@ -116,6 +117,7 @@ export async function createApp(opts: CreateAppOptions = {}): Promise<GrisailleA
   // ROUTES START
   app.use('/api', exposureRouter(ctx));
   app.use('/api', simulateRouter(ctx));
+  app.use('/api', shadeRouter(ctx));
   app.use('/api', libraryRouter(ctx));
   app.use('/api', looksRouter(ctx));
   app.use('/api', swatchesRouter(ctx));

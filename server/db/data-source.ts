@@ -20,6 +20,7 @@ import { Init1764625000000 } from './migrations/1764625000000-init';
 // MIGRATION IMPORTS (features add theirs here)
 import { BenchBoards1764628004000 } from './migrations/1764628004000-bench-boards';
 import { Photos1764627005000 } from './migrations/1764627005000-photos';
+import { SwatchLightStops1796180652802 } from './migrations/1796180652802-swatch-light-stops';
 
 export const entities = [
   User, Production, Membership, Invitation, PasswordReset, SessionRow, MailMessage,
@@ -32,6 +33,7 @@ export const migrations = [
   // MIGRATIONS
   BenchBoards1764628004000,
   Photos1764627005000,
+  SwatchLightStops1796180652802,
 ];
 
 /**

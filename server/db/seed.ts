@@ -56,7 +56,7 @@ export async function seedDemo(ctx: AppContext): Promise<boolean> {
       if (a.role && a.department) members[a.email] = await t.save(Membership, { user, production, role: a.role, department: a.department });
     }
     // DEMO SEED CALLS START
-    await seedLooksAndBoards(t, production, members);
+    await seedLooksAndBoards(t, production, members, ctx.env.dataDir);
     await seedDemoPhotos(t, production, members, ctx.env.dataDir);
     // DEMO SEED CALLS END
   });

@@ -1,15 +1,39 @@
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
 import { InvalidError } from '../errors';
+// importing messages.ts installs the plain messages (zod's global error map)
+import { fieldLabel } from '../../shared/schemas/messages';
 
-/** Turns the first zod issue into a 400 naming the field path, e.g. `swatches.2.srgb`. */
+/** A message as a sentence: a capital first letter and a full stop ("coverage goes from 0 to 1" → "Coverage goes from 0 to 1."). */
+function sentence(message: string): string {
+  const t = message.trim();
+  if (!t) return 'This value is not accepted.';
+  return `${t.charAt(0).toUpperCase()}${t.slice(1)}${/[.!?…)]$/.test(t) ? '' : '.'}`;
+}
+
+/**
+ * A schema's own terse range wording ("must be 0..1", "must be 0..255", as the engine's source schemas
+ * say it) in plain words naming the field: "Coverage goes from 0 to 1."
+ */
+function plainRange(message: string, path: readonly PropertyKey[]): string {
+  const m = /^must be (-?[\d.]+)\s*\.\.\s*(-?[\d.]+)$/.exec(message.trim());
+  if (!m) return sentence(message);
+  const { label, plural } = fieldLabel(path);
+  return `${label.charAt(0).toUpperCase()}${label.slice(1)} ${plural ? 'go' : 'goes'} from ${m[1]} to ${m[2]}.`;
+}
+
+/**
+ * Turns the first zod issue into a 400 naming the field path and saying what is wrong in plain words,
+ * e.g. `origin.colour.rgb.0: RGB values go from 0 to 255.` (shared/schemas/messages.ts).
+ */
 export function zodToInvalid(err: z.ZodError): InvalidError {
   const issue = err.issues[0];
   const path = issue?.path.map(String) ?? [];
   // an unknown key is named by the key itself
   if (issue && issue.code === 'unrecognized_keys' && 'keys' in issue && Array.isArray(issue.keys) && issue.keys.length) path.push(String(issue.keys[0]));
   const field = path.join('.') || undefined;
-  const message = field ? `${field}: ${issue.message}` : (issue?.message ?? 'Invalid input.');
+  const text = issue ? plainRange(issue.message, issue.path) : 'Invalid input.';
+  const message = field ? `${field}: ${text}` : text;
   return new InvalidError(message, field);
 }
 

@@ -9,7 +9,7 @@ export const MAX_BOARD_LOOKS = 4;
 /** At most this many swatches on one board. */
 export const MAX_BOARD_SWATCHES = 500;
 
-const name = z.string().trim().min(1, 'Give it a name.').max(120, 'At most 120 characters.');
+const name = z.string().trim().min(1, 'Give a name.').max(120, 'A name takes at most 120 characters.');
 const id = z.number().int().positive();
 const lookIds = z.array(id).max(MAX_BOARD_LOOKS, `At most ${MAX_BOARD_LOOKS} looks.`).refine((a) => new Set(a).size === a.length, 'A look appears twice.');
 const swatchIds = z.array(id).max(MAX_BOARD_SWATCHES, `At most ${MAX_BOARD_SWATCHES} swatches.`).transform((a) => [...new Set(a)]);

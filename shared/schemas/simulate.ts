@@ -13,8 +13,8 @@ import type { SimulationResult, SwatchResult } from '../spectral/compute';
 import type { LibraryKind } from '../spectral/library';
 import { filterSourceSchema, lightSourceSchema, mediumSourceSchema, swatchSourceSchema } from '../spectral/sources';
 
-export { filterSourceSchema, lightSourceSchema, mediumSourceSchema, swatchSourceSchema } from '../spectral/sources';
-export type { FilterSource, LightSource, MediumSource, SwatchSource } from '../spectral/sources';
+export { filterSourceSchema, lightSourceSchema, makeupParamsSchema, mediumSourceSchema, nestedSwatchSourceSchema, skinParamsSchema, swatchSourceSchema } from '../spectral/sources';
+export type { FilterSource, LightSource, MakeupParams, MediumSource, NestedSwatchSource, SkinParams, SwatchSource } from '../spectral/sources';
 
 /** The light path without surfaces: what a look stores. */
 export const lightPathSourceSchema = z.strictObject({
@@ -32,6 +32,8 @@ export const simulateRequestSchema = z.strictObject({
   swatches: z.array(swatchSourceSchema).max(MAX_SWATCHES, `at most ${MAX_SWATCHES} swatches`).default([]),
   /** also answer, per estimated swatch, the reflectances reaching its possible range's ends */
   extremes: z.boolean().optional(),
+  /** also answer every swatch's reflectance on the working grid, `reflectance: [[nm, ρ], …]` (ρ to 6 decimals) */
+  spectra: z.boolean().optional(),
 });
 export type SimulateRequest = z.infer<typeof simulateRequestSchema>;
 export type SimulateRequestInput = z.input<typeof simulateRequestSchema>;

@@ -1,5 +1,7 @@
 import { z } from 'zod';
+import './messages';
 import { itemNameSchema, type ItemView } from './item';
+import { makeupParamsSchema, skinParamsSchema, type MakeupParams, type SkinParams } from '../spectral/sources';
 import { departmentSchema, type Department } from './roles';
 
 /** Largest text of a measured-reflectance file accepted, characters. */
@@ -9,7 +11,7 @@ export const MAX_TABLE_PAIRS = 4000;
 
 /** The name of a production item (swatch, curve, …). */
 const name = itemNameSchema;
-const notes = z.string().max(4000, 'At most 4000 characters.');
+const notes = z.string().max(4000, 'Notes take at most 4000 characters.');
 const pair = z.tuple([z.number(), z.number()]);
 export const pairsSchema = z.array(pair).min(3, 'At least 3 points.').max(MAX_TABLE_PAIRS, `At most ${MAX_TABLE_PAIRS} points.`);
 
@@ -19,11 +21,15 @@ export const hexSchema = z
   .regex(/^#([0-9a-fA-F]{6}|[0-9a-fA-F]{3})$/, 'A colour like #a33b3b.')
   .transform((s) => s.toLowerCase());
 
+const rgbChannel = z.number().min(0, 'RGB values go from 0 to 255.').max(255, 'RGB values go from 0 to 255.');
+const labL = z.number().min(0, 'L* goes from 0 (black) to 100 (white).').max(100, 'L* goes from 0 (black) to 100 (white).');
+const labAB = z.number().min(-128, 'a* and b* go from −128 to 128.').max(128, 'a* and b* go from −128 to 128.');
+
 /** A colour given by a person: sRGB hex, sRGB 0..255, or CIE L*a*b* (D65) inside the sRGB gamut. */
 export const colourInputSchema = z.discriminatedUnion('space', [
   z.object({ space: z.literal('hex'), hex: hexSchema }),
-  z.object({ space: z.literal('rgb'), rgb: z.tuple([z.number().min(0).max(255), z.number().min(0).max(255), z.number().min(0).max(255)]) }),
-  z.object({ space: z.literal('lab'), lab: z.tuple([z.number().min(0).max(100), z.number().min(-128).max(128), z.number().min(-128).max(128)]) }),
+  z.object({ space: z.literal('rgb'), rgb: z.tuple([rgbChannel, rgbChannel, rgbChannel]) }),
+  z.object({ space: z.literal('lab'), lab: z.tuple([labL, labAB, labAB]) }),
 ]);
 export type ColourInput = z.infer<typeof colourInputSchema>;
 
@@ -55,6 +61,10 @@ export const swatchOriginInputSchema = z.discriminatedUnion('type', [
     /** the region's mean colour */
     colour: colourInputSchema,
   }),
+  /** skin from the physical model (shared/spectral/skin.ts): volume fractions and saturation 0..1 */
+  z.object({ type: z.literal('skin'), skin: skinParamsSchema }),
+  /** a layer of paint over a surface with a coverage 0..1 (shared/spectral/makeup.ts) */
+  z.object({ type: z.literal('makeup'), makeup: makeupParamsSchema }),
 ]);
 export type SwatchOriginInput = z.infer<typeof swatchOriginInputSchema>;
 
@@ -62,7 +72,16 @@ export type SwatchOriginInput = z.infer<typeof swatchOriginInputSchema>;
 export type SwatchOrigin =
   | { type: 'colour'; colour: ColourInput }
   | { type: 'measured'; basis: (typeof REFLECTANCE_BASES)[number]; fileName: string | null; points: number }
-  | { type: 'photo'; photoId: number; rect: [number, number, number, number]; colour: ColourInput };
+  | { type: 'photo'; photoId: number; rect: [number, number, number, number]; colour: ColourInput }
+  | { type: 'skin'; skin: SkinParams }
+  | { type: 'makeup'; makeup: MakeupParams };
+
+/** A surface's own light against the key, stops: + lit hotter, − under (the white wall +1, a face in fill −2). */
+export const MAX_LIGHT_STOPS = 4;
+export const lightStopsSchema = z
+  .number()
+  .min(-MAX_LIGHT_STOPS, `The light on the surface goes from −${MAX_LIGHT_STOPS} to +${MAX_LIGHT_STOPS} stops.`)
+  .max(MAX_LIGHT_STOPS, `The light on the surface goes from −${MAX_LIGHT_STOPS} to +${MAX_LIGHT_STOPS} stops.`);
 
 export const swatchCreateSchema = z.object({
   name,
@@ -70,11 +89,19 @@ export const swatchCreateSchema = z.object({
   department: departmentSchema.optional(),
   notes: notes.default(''),
   origin: swatchOriginInputSchema,
+  /** its own light against the key, stops (default 0: lit as the key) */
+  lightStops: lightStopsSchema.default(0),
 });
 export type SwatchCreateInput = z.input<typeof swatchCreateSchema>;
 
 export const swatchUpdateSchema = z
-  .object({ name: name.optional(), department: departmentSchema.optional(), notes: notes.optional(), origin: swatchOriginInputSchema.optional() })
+  .object({
+    name: name.optional(),
+    department: departmentSchema.optional(),
+    notes: notes.optional(),
+    origin: swatchOriginInputSchema.optional(),
+    lightStops: lightStopsSchema.optional(),
+  })
   .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change.' });
 export type SwatchUpdateInput = z.input<typeof swatchUpdateSchema>;
 
@@ -84,8 +111,14 @@ export interface SwatchView extends ItemView {
   origin: SwatchOrigin;
   /** its colour to the eye, sRGB */
   hex: string;
-  /** 'measured' when a reflectance was given; else the spectrum is estimated from the colour */
-  spectrum: 'measured' | 'estimated';
+  /**
+   * 'measured' when a reflectance was given; 'modelled' for skin and makeup (the physical model's
+   * reflectance; a makeup whose paint is a colour value is still estimated in its tones' ranges);
+   * else the spectrum is estimated from the colour
+   */
+  spectrum: 'measured' | 'modelled' | 'estimated';
+  /** its own light against the key, stops (+ hotter, − under); tones move by it */
+  lightStops: number;
   /** the reflectance on the grid ([nm, 0..1]); measured, or the estimate */
   reflectance?: [number, number][];
 }

@@ -4,10 +4,10 @@
  *   resolveLight(src) / resolveFilter(src) / resolveMedium(src)   sources (sources.ts) → spectra
  *   resolveLightPath({ light, filters, medium })                       sources → a prepared LightPath
  *   prepareLightPath({ light, filters, medium })                       spectra → a prepared LightPath
- *   resolveSwatch(src, table)                                      swatch source → { name, reflectance, estimated }
+ *   resolveSwatch(src, table)                                      swatch source (measured, colour, skin, makeup) → { name, reflectance, estimated }
  *   filterFactor(light, filters, medium)                           → { factor, stops, opaque }
  *   simulateSwatches(lightPath, swatches)                              → { filterFactor, filterStops, opaque, white, swatches[] }
- *   simulate(request, table)                                       POST /api/simulate in one call
+ *   simulate(request, table)                                       POST /api/simulate in one call (`spectra`: each swatch's reflectance too)
  *   reflectanceFromSrgb(hexOrRgb, table)                           (estimate.ts) estimated reflectance of a colour
  *
  * Model, for a surface ρ, light E, filters T = ΠTᵢ, medium S (all on the 350–900 nm, 1 nm working grid):
@@ -33,8 +33,11 @@ import { blackbody, cieIlluminant, daylight, lightThroughGel, whiteLed } from '.
 import { FLOOR_STOPS, MAX_FILTER_STOPS, MIDDLE_GREY, OPAQUE_LIMIT_STOPS } from './limits';
 import { eyeMedium, mediumFromModel } from './media';
 import { ESTIMATE_NM, exposureRange, xyzD65 } from './metamer-range';
+import { GRID_NM } from './grid';
 import { GRID_SIZE } from './policy';
-import type { FilterSource, LightSource, MediumSource, SwatchSource } from './sources';
+import { makeupOver } from './makeup';
+import { skinReflectance } from './skin';
+import type { FilterSource, LightSource, MediumSource, NestedSwatchSource, SwatchSource } from './sources';
 import { constantSpectrum, multiply, onGrid } from './spectrum';
 import type { Spectrum, Xyz } from './types';
 import type { UpsampleTable } from './upsample-table';
@@ -62,6 +65,8 @@ export interface SwatchResult {
   estimated: boolean;
   /** how far the tone could move, on the scale of `stops` (when asked for; zero width for measured reflectance) */
   range?: StopsRange;
+  /** the swatch's reflectance on the working grid, `[nm, ρ]` with ρ rounded to 6 decimals (when asked for with `spectra`) */
+  reflectance?: [number, number][];
 }
 
 /**
@@ -97,6 +102,8 @@ export interface SimulationInput {
   swatches: readonly SwatchSource[];
   /** also answer the reflectances reaching each possible range's ends */
   extremes?: boolean;
+  /** also answer every swatch's reflectance on the working grid (`reflectance: [[nm, ρ], …]`) */
+  spectra?: boolean;
 }
 
 function unknownId(id: string, want: string): SpectralInputError {
@@ -160,21 +167,37 @@ export interface ResolvedSwatch {
   estimated: boolean;
 }
 
-/**
- * A swatch source → reflectance. Measured reflectance is used as given; colour values are estimated
- * with the upsampling table (required for them; pass null when only measured swatches can occur).
- */
-export function resolveSwatch(src: SwatchSource, table: UpsampleTable | null): ResolvedSwatch {
-  const name = src.name;
-  if (src.reflectance !== undefined) return { name, reflectance: within(['reflectance'], () => reflectanceFromPairs(src.reflectance, src.basis)), estimated: false };
+/** A swatch source without its name (a makeup layer's base or paint) → reflectance and whether it was estimated. */
+function resolveSurface(src: NestedSwatchSource, table: UpsampleTable | null): Omit<ResolvedSwatch, 'name'> {
+  if (src.reflectance !== undefined) return { reflectance: within(['reflectance'], () => reflectanceFromPairs(src.reflectance, src.basis)), estimated: false };
   const need = () => {
     if (!table) throw new Error('resolveSwatch: a colour swatch needs the upsampling table');
     return table;
   };
-  if (src.srgb !== undefined) return { name, reflectance: within(['srgb'], () => reflectanceFromSrgb(src.srgb!, need())), estimated: true };
-  if (src.rgb !== undefined) return { name, reflectance: within(['rgb'], () => reflectanceFromSrgb(src.rgb!.map((v) => v / 255) as [number, number, number], need())), estimated: true };
-  if (src.lab !== undefined) return { name, reflectance: within(['lab'], () => reflectanceFromLab(src.lab!, need())), estimated: true };
-  throw new SpectralInputError('a swatch needs one of reflectance, srgb, rgb, lab');
+  if (src.srgb !== undefined) return { reflectance: within(['srgb'], () => reflectanceFromSrgb(src.srgb!, need())), estimated: true };
+  if (src.rgb !== undefined) return { reflectance: within(['rgb'], () => reflectanceFromSrgb(src.rgb!.map((v) => v / 255) as [number, number, number], need())), estimated: true };
+  if (src.lab !== undefined) return { reflectance: within(['lab'], () => reflectanceFromLab(src.lab!, need())), estimated: true };
+  if (src.skin !== undefined) return { reflectance: within(['skin'], () => skinReflectance(src.skin!)), estimated: false };
+  if (src.makeup !== undefined) {
+    const { over, colour, coverage } = src.makeup;
+    const under = within(['makeup', 'over'], () => resolveSurface(over, table));
+    const paint =
+      typeof colour === 'string'
+        ? { reflectance: within(['makeup', 'colour'], () => reflectanceFromSrgb(colour, need())), estimated: true }
+        : within(['makeup', 'colour'], () => resolveSurface(colour, table));
+    return { reflectance: makeupOver(under.reflectance, paint.reflectance, coverage), estimated: under.estimated || paint.estimated };
+  }
+  throw new SpectralInputError('a swatch needs one of reflectance, srgb, rgb, lab, skin, makeup');
+}
+
+/**
+ * A swatch source → reflectance. Measured reflectance is used as given; colour values are estimated
+ * with the upsampling table (required for them; pass null when only measured swatches can occur); skin is
+ * the skin model's reflectance (skin.ts; not estimated); a makeup layer is Kubelka–Munk over its base
+ * (makeup.ts), estimated when its paint or its base is (a `colour` hex is estimated like a colour swatch).
+ */
+export function resolveSwatch(src: SwatchSource, table: UpsampleTable | null): ResolvedSwatch {
+  return { name: src.name, ...resolveSurface(src, table) };
 }
 
 /** A filter factor: multiplier F, stops log2 F, and whether the light path is effectively opaque. */
@@ -335,5 +358,12 @@ export function simulateSwatches(lightPath: LightPath, swatches: readonly Resolv
 export function simulate(request: SimulationInput, table: UpsampleTable | null): SimulationResult {
   const lightPath = resolveLightPath(request);
   const swatches = request.swatches.map((s, i) => within(['swatches', i], () => resolveSwatch(s, table)));
-  return simulateSwatches(lightPath, swatches, { ranges: true, extremes: request.extremes === true });
+  const result = simulateSwatches(lightPath, swatches, { ranges: true, extremes: request.extremes === true });
+  if (request.spectra === true) {
+    result.swatches.forEach((r, i) => {
+      const v = onGrid(swatches[i].reflectance).values;
+      r.reflectance = Array.from(v, (x, j) => [GRID_NM[j], Math.round(x * 1e6) / 1e6] as [number, number]);
+    });
+  }
+  return result;
 }

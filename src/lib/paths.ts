@@ -27,7 +27,8 @@ export const paths = {
       /** the bench; `'new'` opens an empty look, no id lets the page pick the first look */
       bench: (lookId?: Id) => (lookId === undefined ? `${base}/bench` : `${base}/bench/${lookId}`),
       library: () => `${base}/library`,
-      swatches: () => `${base}/swatches`,
+      /** the swatches page; `swatchId` opens that swatch */
+      swatches: (swatchId?: Id) => (swatchId === undefined ? `${base}/swatches` : `${base}/swatches?swatch=${swatchId}`),
       boards: () => `${base}/boards`,
       board: (id: Id) => `${base}/boards/${id}`,
       photos: () => `${base}/photos`,
@@ -54,6 +55,10 @@ export const apiPaths = {
     return { root: () => base, accept: () => `${base}/accept` };
   },
   library: () => '/api/library',
+  /** POST: a light path and swatches → tones (stops before key placement) */
+  simulate: () => '/api/simulate',
+  /** POST: the colour nearest a given one that lands on a zone (or stops) through a light path */
+  shade: () => '/api/shade',
   upsampleTable: () => '/api/library/upsample-table',
   outbox: () => '/api/admin/outbox',
   productions: () => '/api/productions',
@@ -89,6 +94,7 @@ export const apiPaths = {
       swatch: (id: number) => ({
         root: () => `${base}/swatches/${id}`,
         tones: () => `${base}/swatches/${id}/tones`,
+        duplicate: () => `${base}/swatches/${id}/duplicate`,
       }),
       photos: () => `${base}/photos`,
       photo: (id: number) => ({

@@ -14,6 +14,8 @@ import type { Department } from '../../../shared/schemas/roles';
 import { toneSettingsSchema } from '../../../shared/schemas/exposure';
 import type { LookFilter, LookLight, LookMedium } from '../../../shared/schemas/look';
 import { resolveSwatchOrigin } from '../../modules/swatches/swatches.service';
+import { getUpsampleTable } from '../../services/upsample-table';
+import { DEMO_MODELLED_BOARD, DEMO_MODELLED_SWATCHES } from './modelled-makeup';
 
 interface DemoLook {
   name: string;
@@ -114,8 +116,11 @@ export const DEMO_BOARDS: { department: Department; name: string; notes: string;
 /** Which demo member files each department's swatches and boards. */
 const OWNER_OF: Record<string, string> = { makeup: 'makeup@demo.grisaille.test', costume: 'costume@demo.grisaille.test', art: 'art@demo.grisaille.test' };
 
-/** Seeds the demo looks, swatches and boards inside the demo seed's transaction. */
-export async function seedLooksAndBoards(t: EntityManager, production: Production, members: Record<string, Membership>): Promise<void> {
+/**
+ * Seeds the demo looks, swatches and boards inside the demo seed's transaction; the modelled makeup board's
+ * paints are colour values, so it loads the colour estimate's table from `dataDir`.
+ */
+export async function seedLooksAndBoards(t: EntityManager, production: Production, members: Record<string, Membership>, dataDir: string): Promise<void> {
   const camera = members['camera@demo.grisaille.test']?.user ?? null;
   const tone = toneSettingsSchema.parse({});
   const looks: Look[] = [];
@@ -132,4 +137,12 @@ export async function seedLooksAndBoards(t: EntityManager, production: Productio
     }
     await t.save(Board, t.create(Board, { production, department: b.department, name: b.name, notes: b.notes, lookIds: tungstenLooks, mergeStops: 1 / 3, mergeDeltaE: 10, swatches, createdBy: by }));
   }
+  const makeupBy = members[OWNER_OF.makeup]?.user ?? camera;
+  const table = await getUpsampleTable(dataDir);
+  const modelled: Swatch[] = [];
+  for (const m of DEMO_MODELLED_SWATCHES) {
+    const resolved = resolveSwatchOrigin(m.origin, 'origin', table);
+    modelled.push(await t.save(Swatch, t.create(Swatch, { production, department: 'makeup', name: m.name, notes: m.notes, ...resolved, createdBy: makeupBy })));
+  }
+  await t.save(Board, t.create(Board, { production, department: 'makeup', ...DEMO_MODELLED_BOARD, lookIds: tungstenLooks, mergeStops: 1 / 3, mergeDeltaE: 10, swatches: modelled, createdBy: makeupBy }));
 }

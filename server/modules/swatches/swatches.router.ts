@@ -1,7 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import type { AppContext } from '../../context';
-import { validate } from '../../middleware/validate';
+import { validate, zodToInvalid } from '../../middleware/validate';
 import { handle, productionRoute, pid, idParam, itemRoutes } from '../route-registry';
 import { departmentSchema } from '../../../shared/schemas/roles';
 import { MAX_IMPORT_BYTES, swatchCreateSchema, swatchImportFieldsSchema, swatchUpdateSchema } from '../../../shared/schemas/swatch';
@@ -26,10 +26,7 @@ const uploadMeasurements: RequestHandler = (req, res, next) => {
 function importInput(req: Parameters<RequestHandler>[0]) {
   if (!req.file) throw new InvalidError('Choose a spectrophotometer file (CGATS.17 text, .ti3 or .sp) in the part named "file".', 'file');
   const fields = swatchImportFieldsSchema.safeParse(req.body ?? {});
-  if (!fields.success) {
-    const i = fields.error.issues[0];
-    throw new InvalidError(`${i.path.join('.')}: ${i.message}`, i.path.join('.'));
-  }
+  if (!fields.success) throw zodToInvalid(fields.error);
   return { file: req.file, fields: fields.data };
 }
 
@@ -56,6 +53,9 @@ export function swatchesRouter(ctx: AppContext): Router {
   }));
   productionRoute(r, ctx, 'get', '/swatches/:swatchId/tones', 'viewer', handle(async (req, res) => {
     res.json(await tones.swatchTones(pid(req), idParam(req.params.swatchId, 'Swatch')));
+  }));
+  productionRoute(r, ctx, 'post', '/swatches/:swatchId/duplicate', 'contributor', handle(async (req, res) => {
+    res.status(201).json({ swatch: await svc.duplicate(req.membership!, idParam(req.params.swatchId, 'Swatch')) });
   }));
   itemRoutes(r, ctx, { plural: 'swatches', param: 'swatchId', key: 'swatch', what: 'Swatch', read: 'viewer', write: 'contributor', updateSchema: swatchUpdateSchema }, svc);
   return r;

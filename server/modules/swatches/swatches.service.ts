@@ -14,7 +14,8 @@ import { readTable } from '../library/table-input';
 import { measuredFromTable } from './measured-swatch';
 import { assertDepartmentAccess } from '../../policy/department-access';
 import { hexOfColour } from './swatch-colour';
-import { estimatedPairs } from '../tones/swatch-spectra';
+import { estimatedPairs, isModelled } from '../tones/swatch-spectra';
+import { modelledFromSource } from './modelled-swatch';
 import { getUpsampleTable } from '../../services/upsample-table';
 import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
 
@@ -23,8 +24,14 @@ type UpdateInput = z.infer<typeof swatchUpdateSchema>;
 type OriginInput = CreateInput['origin'];
 type ImportFields = z.infer<typeof swatchImportFieldsSchema>;
 
-/** Turns an origin as given into what a swatch stores: origin, display hex, measured reflectance or null. */
-export function resolveSwatchOrigin(o: OriginInput, field = 'origin'): { origin: SwatchOrigin; hex: string; reflectance: [number, number][] | null } {
+/**
+ * Turns an origin as given into what a swatch stores: origin, display hex, and the measured or modelled
+ * reflectance (null when the spectrum is estimated from the colour). Skin and makeup are resolved by the
+ * engine's model; a makeup whose paint is a colour value needs the upsampling table (`table`).
+ */
+export function resolveSwatchOrigin(o: OriginInput, field = 'origin', table: UpsampleTable | null = null): { origin: SwatchOrigin; hex: string; reflectance: [number, number][] | null } {
+  if (o.type === 'skin') return { origin: { type: 'skin', skin: o.skin }, ...modelledFromSource({ skin: o.skin }, table, field) };
+  if (o.type === 'makeup') return { origin: { type: 'makeup', makeup: o.makeup }, ...modelledFromSource({ makeup: o.makeup }, table, field) };
   if (o.type === 'colour') return { origin: { type: 'colour', colour: o.colour }, hex: hexOfColour(o.colour, `${field}.colour`), reflectance: null };
   if (o.type === 'photo') return { origin: { type: 'photo', photoId: o.photoId, rect: o.rect, colour: o.colour }, hex: hexOfColour(o.colour, `${field}.colour`), reflectance: null };
   return measuredFromTable(readTable(o.table, `${field}.table`), o.basis, `${field}.table`);
@@ -39,11 +46,18 @@ export function swatchView(s: Swatch, table?: UpsampleTable): SwatchView {
     notes: s.notes,
     origin: s.origin,
     hex: s.hex,
-    spectrum: s.reflectance ? 'measured' : 'estimated',
+    spectrum: isModelled(s.origin) ? 'modelled' : s.reflectance ? 'measured' : 'estimated',
+    lightStops: s.lightStops ?? 0,
     ...authoredView(s),
   };
   if (table) v.reflectance = s.reflectance ?? estimatedPairs(s.hex, table);
   return v;
+}
+
+/** The name of a copy: "<name> (copy)", the name shortened to keep within 120 characters. */
+export function copyName(name: string): string {
+  const suffix = ' (copy)';
+  return `${name.slice(0, 120 - suffix.length).trimEnd()}${suffix}`;
 }
 
 export class SwatchesService {
@@ -75,9 +89,34 @@ export class SwatchesService {
   async create(m: Membership, input: CreateInput, em: EntityManager = this.ds.manager) {
     const department = input.department ?? m.department;
     assertDepartmentAccess(m, department, 'swatches');
-    const resolved = resolveSwatchOrigin(input.origin);
-    const s = await em.save(Swatch, em.create(Swatch, { production: m.production, department, name: input.name, notes: input.notes, ...resolved, createdBy: m.user }));
-    return swatchView(s, await this.table());
+    const table = await this.table();
+    const resolved = resolveSwatchOrigin(input.origin, 'origin', table);
+    const s = await em.save(Swatch, em.create(Swatch, { production: m.production, department, name: input.name, notes: input.notes, lightStops: input.lightStops, ...resolved, createdBy: m.user }));
+    return swatchView(s, table);
+  }
+
+  /**
+   * A copy of a swatch in the same department, named "<name> (copy)": its origin, colour, reflectance,
+   * notes and light kept. The department rule applies as for any change to the department's swatches (403).
+   */
+  async duplicate(m: Membership, id: number) {
+    const table = await this.table();
+    return this.ds.transaction(async (t) => {
+      const s = await this.entity(m.production.id, id, t);
+      assertDepartmentAccess(m, s.department, 'swatches');
+      const copy = t.create(Swatch, {
+        production: m.production,
+        department: s.department,
+        name: copyName(s.name),
+        notes: s.notes,
+        origin: s.origin,
+        hex: s.hex,
+        reflectance: s.reflectance,
+        lightStops: s.lightStops ?? 0,
+        createdBy: m.user,
+      });
+      return swatchView(await t.save(Swatch, copy), table);
+    });
   }
 
   /**
@@ -127,16 +166,22 @@ export class SwatchesService {
     return saved.map((s) => swatchView(s, table));
   }
 
+  /**
+   * Edits name, notes, department, light and origin: a new colour is re-estimated, new skin or makeup
+   * parameters recompute the reflectance and hex.
+   */
   async update(m: Membership, id: number, input: UpdateInput) {
+    const table = await this.table();
     return this.ds.transaction(async (t) => {
       const s = await this.entity(m.production.id, id, t);
       assertDepartmentAccess(m, s.department, 'swatches');
       if (input.department && input.department !== s.department) assertDepartmentAccess(m, input.department, 'swatches');
-      if (input.origin) Object.assign(s, resolveSwatchOrigin(input.origin));
+      if (input.origin) Object.assign(s, resolveSwatchOrigin(input.origin, 'origin', table));
       if (input.name !== undefined) s.name = input.name;
       if (input.notes !== undefined) s.notes = input.notes;
       if (input.department) s.department = input.department;
-      return swatchView(await t.save(s), await this.table());
+      if (input.lightStops !== undefined) s.lightStops = input.lightStops;
+      return swatchView(await t.save(s), table);
     });
   }
 

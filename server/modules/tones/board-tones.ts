@@ -4,9 +4,15 @@
  * (shared/look/compose-look) places the key, runs the tone pipeline and rounds the grey as photos do;
  * culori gives CIEDE2000. A merge: two swatches within `mergeStops` on the medium yet more than
  * `mergeDeltaE` apart to the eye.
+ *
+ * A surface's own light (`lightStops`, + lit hotter than the key, − under it) moves its exposure on the
+ * medium and to the eye by that many stops before the tone pipeline, and its range with them; the zone,
+ * the grey and the lost/blown flags then follow from the pipeline's own thresholds, and the merges compare
+ * the moved tones. Its L*a*b* is that of the surface as lit (XYZ × 2^lightStops against the light's white).
  */
 import { differenceCiede2000, modeLab65, useMode } from 'culori/fn';
-import { simulateSwatches, type ResolvedSwatch } from '../../../shared/spectral/compute';
+import { simulateSwatches, type ResolvedSwatch, type StopsRange } from '../../../shared/spectral/compute';
+import { xyzToLab } from '../../../shared/spectral/colour';
 import { toneThrough, type ComposedLook } from '../../../shared/look/compose-look';
 import type { LookTones, Merge, SwatchTone } from '../../../shared/schemas/board';
 import type { Spectrum } from '../../../shared/spectral/spectrum';
@@ -18,7 +24,13 @@ export interface ToneSwatch {
   name: string;
   reflectance: Spectrum;
   estimated: boolean;
+  /** its own light against the key, stops (+ hotter, − under; default 0) */
+  lightStops?: number;
 }
+
+/** A range moved by a surface's own light, stops. */
+const movedRange = (r: StopsRange, by: number): StopsRange =>
+  by === 0 ? r : { possible: [r.possible[0] + by, r.possible[1] + by], plausible: [r.plausible[0] + by, r.plausible[1] + by] };
 
 /** A look ready to tone swatches: its references (labels) and its composition. */
 export interface ToneLook {
@@ -63,11 +75,15 @@ export function lookTones(look: ToneLook, swatches: ToneSwatch[], mergeStops: nu
   const resolved: ResolvedSwatch[] = swatches.map((s) => ({ name: s.name, reflectance: s.reflectance, estimated: s.estimated }));
   const path = look.composed.path;
   const sim = simulateSwatches(path, resolved);
-  const tones: SwatchTone[] = sim.swatches.map((r, i) => ({
-    swatchId: swatches[i].id,
-    ...toneThrough(look.composed, r.stops, r.eyeStops, cachedStopsRange(path, resolved[i], r.exposure)),
-    lab: r.lab,
-  }));
+  const tones: SwatchTone[] = sim.swatches.map((r, i) => {
+    const by = swatches[i].lightStops ?? 0;
+    const lab = by === 0 ? r.lab : xyzToLab([r.xyz[0] * 2 ** by, r.xyz[1] * 2 ** by, r.xyz[2] * 2 ** by], path.white);
+    return {
+      swatchId: swatches[i].id,
+      ...toneThrough(look.composed, r.stops + by, r.eyeStops + by, movedRange(cachedStopsRange(path, resolved[i], r.exposure), by)),
+      lab,
+    };
+  });
   return {
     lookId: look.id,
     lookName: look.name,

@@ -37,7 +37,7 @@ export async function prepareToneLooks(em: EntityManager, productionId: number, 
 }
 
 export function toneSwatches(rows: Swatch[], table: UpsampleTable): ToneSwatch[] {
-  return rows.map((s) => ({ id: s.id, name: s.name, ...swatchSpectrum(s, table) }));
+  return rows.map((s) => ({ id: s.id, name: s.name, ...swatchSpectrum(s, table), lightStops: s.lightStops ?? 0 }));
 }
 
 /** Tones of boards and swatches through looks, computed on the server per request. */
@@ -88,7 +88,7 @@ export class ToneService {
     const swatches = toneSwatches(board.swatches, table);
     return {
       tones: lookTones(toneLook, swatches, board.mergeStops, board.mergeDeltaE),
-      swatches: board.swatches.map((s) => ({ id: s.id, name: s.name, hex: s.hex, estimated: !s.reflectance })),
+      swatches: board.swatches.map((s, i) => ({ id: s.id, name: s.name, hex: s.hex, estimated: swatches[i].estimated })),
     };
   }
 }

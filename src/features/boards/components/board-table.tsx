@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { createColumnHelper, createSortedRowModel, rowSortingFeature, sortFn_alphanumeric, tableFeatures, useTable, type SortingState } from '@tanstack/react-table';
-import { useState } from 'react';
+import type { SwatchView } from '../../../../shared/schemas/swatch';
 import type { SwatchTone } from '../../../../shared/schemas/board';
 import { greyCss, signedStops } from '../../../lib/tone-format';
 import { downloadText, toCsv } from '../lib/board-csv';
@@ -12,7 +12,7 @@ export interface BoardRow {
   name: string;
   department: string;
   hex: string;
-  spectrum: 'measured' | 'estimated';
+  spectrum: SwatchView['spectrum'];
   /** per look id: its tone and the names it merges with (whatever the spectra) and may merge with */
   looks: Record<number, { tone: SwatchTone; mergesWith: string[]; mayMergeWith: string[] }>;
 }
@@ -20,20 +20,38 @@ export interface BoardRow {
 const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel(), sortFns: { alphanumeric: sortFn_alphanumeric } });
 const helper = createColumnHelper<typeof features, BoardRow>();
 
-/** The board as a table: sortable columns (TanStack Table) and a CSV export of what is shown, in its order. */
-export function BoardTable({ rows, looks, fileName }: { rows: BoardRow[]; looks: { id: number; name: string }[]; fileName: string }) {
-  const [sorting, setSorting] = useState<SortingState>([]);
+/** At most two names, then how many more (all of them are in the cell's title and the CSV). */
+const fewNames = (names: string[]) => (names.length <= 2 ? names.join(', ') : `${names.slice(0, 2).join(', ')} +${names.length - 2} more`);
+
+/** A table sort as text for the address: "zone-3:desc,name:asc". */
+export const sortingToText = (s: SortingState) => s.map((x) => `${x.id}:${x.desc ? 'desc' : 'asc'}`).join(',');
+export const sortingFromText = (t: string | null): SortingState =>
+  (t ?? '').split(',').filter(Boolean).map((p) => { const [id, dir] = p.split(':'); return { id, desc: dir === 'desc' }; });
+
+/**
+ * The board as a table: sortable columns (TanStack Table), the order kept by the caller (in the address),
+ * a CSV export of what is shown in that order; one column group per look, so three looks fit a laptop's width.
+ */
+export function BoardTable({ rows, looks, fileName, sorting, onSorting }: { rows: BoardRow[]; looks: { id: number; name: string }[]; fileName: string; sorting: SortingState; onSorting: (s: SortingState) => void }) {
   const columns = useMemo(
     () =>
       helper.columns([
-        helper.accessor('name', { header: 'Swatch', sortFn: 'alphanumeric' }),
-        helper.accessor('department', { header: 'Department' }),
-        helper.accessor('hex', {
-          header: 'Colour',
-          enableSorting: false,
-          cell: (c) => <span className="inline-flex items-center gap-1"><span className="inline-block h-3 w-6 rounded-sm border border-paper-line" style={{ background: c.getValue() }} />{c.getValue()}</span>,
+        helper.accessor('name', {
+          header: 'Swatch',
+          sortFn: 'alphanumeric',
+          cell: (c) => {
+            const r = c.row.original;
+            return (
+              <span className="flex min-w-[8rem] items-center gap-2">
+                <span aria-hidden="true" className="inline-block h-6 w-6 shrink-0 rounded-sm border border-paper-line" style={{ background: r.hex }} title={`${r.hex} to the eye`} />
+                <span className="min-w-0">
+                  <span className="block font-medium">{r.name}</span>
+                  <span className="block text-[11px] text-ink-mute">{r.department} · {r.hex} · {r.spectrum}</span>
+                </span>
+              </span>
+            );
+          },
         }),
-        helper.accessor('spectrum', { header: 'Spectrum' }),
         ...looks.flatMap((l) => [
           helper.accessor((r) => r.looks[l.id]?.tone.zone ?? null, {
             id: `zone-${l.id}`,
@@ -41,7 +59,15 @@ export function BoardTable({ rows, looks, fileName }: { rows: BoardRow[]; looks:
             sortUndefined: 'last',
             cell: (c) => {
               const t = c.row.original.looks[l.id]?.tone;
-              return t ? <span className="inline-flex items-center gap-1"><span className="inline-block h-3 w-4 rounded-sm" style={{ background: greyCss(t.grey) }} />{t.numeral} <span className="text-ink-mute">({t.zone.toFixed(1)})</span></span> : '—';
+              return t ? (
+                <span className="inline-flex items-start gap-1.5">
+                  <span className="mt-0.5 inline-block h-5 w-5 shrink-0 rounded-sm border border-paper-line" style={{ background: greyCss(t.grey) }} />
+                  <span className="flex flex-col leading-tight">
+                    <span className="whitespace-nowrap"><span className="font-semibold">{t.numeral}</span> <span className="text-[11px] text-ink-mute">{t.zone.toFixed(1)} · {signedStops(t.stops)}</span></span>
+                    <span className="whitespace-nowrap text-[11px] text-ink-mute">shift {signedStops(t.shift)}</span>
+                  </span>
+                </span>
+              ) : '—';
             },
           }),
           helper.accessor((r) => { const t = r.looks[l.id]?.tone; return t ? widthOf(t.range.plausible) : null; }, {
@@ -49,31 +75,19 @@ export function BoardTable({ rows, looks, fileName }: { rows: BoardRow[]; looks:
             header: `Could read · ${l.name}`,
             sortUndefined: 'last',
             cell: (c) => {
-              const t = c.row.original.looks[l.id]?.tone;
+              const x = c.row.original.looks[l.id];
+              const t = x?.tone;
               if (!t) return '—';
               const exact = isExact(t.range);
               const w = widthOf(t.range.plausible);
               return (
-                <span className="inline-flex items-center gap-2" data-testid="row-range">
-                  <RangeBar range={t.range} stops={t.stops} className="w-36" />
-                  <span className={exact ? 'text-accent' : w >= WIDE_WIDTH ? 'font-semibold text-warn' : ''}>{exact ? 'measured' : zoneSpanWords(t.range.plausible)}</span>
-                  {!exact && <span className="text-ink-mute">({w.toFixed(1)} st)</span>}
-                </span>
-              );
-            },
-          }),
-          helper.accessor((r) => r.looks[l.id]?.tone.stops ?? null, { id: `stops-${l.id}`, header: `Stops · ${l.name}`, sortUndefined: 'last', cell: (c) => (c.getValue() === null ? '—' : signedStops(c.getValue() as number)) }),
-          helper.accessor((r) => r.looks[l.id]?.tone.shift ?? null, { id: `shift-${l.id}`, header: `Shift · ${l.name}`, sortUndefined: 'last', cell: (c) => (c.getValue() === null ? '—' : signedStops(c.getValue() as number)) }),
-          helper.accessor((r) => [...(r.looks[l.id]?.mergesWith ?? []), ...(r.looks[l.id]?.mayMergeWith ?? [])].join(', '), {
-            id: `merge-${l.id}`,
-            header: `Merges · ${l.name}`,
-            cell: (c) => {
-              const x = c.row.original.looks[l.id];
-              if (!x) return '';
-              return (
-                <span className="inline-flex flex-col">
-                  {x.mergesWith.length > 0 && <span className="text-warn"><span className="font-semibold">merges:</span> {x.mergesWith.join(', ')}</span>}
-                  {x.mayMergeWith.length > 0 && <span className="text-warn/75"><span className="font-medium">may merge:</span> {x.mayMergeWith.join(', ')}</span>}
+                <span className="flex flex-col gap-0.5">
+                  <span className="inline-flex items-center gap-1.5" data-testid="row-range">
+                    <RangeBar range={t.range} stops={t.stops} className="w-14" />
+                    <span className={`whitespace-nowrap text-[11px] ${exact ? 'text-accent' : w >= WIDE_WIDTH ? 'font-semibold text-warn' : ''}`}>{exact ? 'measured' : `${zoneSpanWords(t.range.plausible)} (${w.toFixed(1)} st)`}</span>
+                  </span>
+                  {x.mergesWith.length > 0 && <span className="text-[11px] text-warn" title={x.mergesWith.join(', ')}><span className="font-semibold">merges:</span> {fewNames(x.mergesWith)}</span>}
+                  {x.mayMergeWith.length > 0 && <span className="text-[11px] text-warn/75" title={x.mayMergeWith.join(', ')}><span className="font-medium">may merge:</span> {fewNames(x.mayMergeWith)}</span>}
                 </span>
               );
             },
@@ -82,7 +96,7 @@ export function BoardTable({ rows, looks, fileName }: { rows: BoardRow[]; looks:
       ]),
     [looks],
   );
-  const table = useTable({ features, columns, data: rows, getRowId: (r) => String(r.id), state: { sorting }, onSortingChange: setSorting });
+  const table = useTable({ features, columns, data: rows, getRowId: (r) => String(r.id), state: { sorting }, onSortingChange: (u) => onSorting(typeof u === 'function' ? u(sorting) : u) });
 
   function exportCsv() {
     const header = ['swatch', 'department', 'colour', 'spectrum', ...looks.flatMap((l) => [`zone (${l.name})`, `zone numeral (${l.name})`, `stops (${l.name})`, `eye stops (${l.name})`, `shift stops (${l.name})`, `grey 0-255 (${l.name})`, `plausible low stops (${l.name})`, `plausible high stops (${l.name})`, `possible low stops (${l.name})`, `possible high stops (${l.name})`, `merges with (${l.name})`, `may merge with (${l.name})`])];
@@ -105,16 +119,16 @@ export function BoardTable({ rows, looks, fileName }: { rows: BoardRow[]; looks:
         <button type="button" className="rounded-md border border-paper-line bg-paper-raised px-3 py-1.5 text-sm hover:bg-paper-sunk" onClick={exportCsv}>Export CSV</button>
       </div>
       <div className="overflow-x-auto rounded-lg border border-paper-line bg-paper-raised">
-        <table className="w-full text-sm">
+        <table className="w-full table-auto text-sm" aria-label="Board as a table">
           <thead className="border-b border-paper-line text-left text-xs text-ink-mute">
             {table.getHeaderGroups().map((g) => (
               <tr key={g.id}>
                 {g.headers.map((h) => {
                   const dir = h.column.getIsSorted();
                   return (
-                    <th key={h.id} className="whitespace-nowrap px-3 py-2 font-medium" aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}>
+                    <th key={h.id} className="px-2 py-2 align-bottom font-medium" aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}>
                       {h.column.getCanSort() ? (
-                        <button type="button" className="inline-flex items-center gap-1 hover:text-ink" onClick={h.column.getToggleSortingHandler()}>
+                        <button type="button" className="inline-flex items-center gap-1 text-left hover:text-ink" onClick={h.column.getToggleSortingHandler()}>
                           <table.FlexRender header={h} />
                           <span aria-hidden="true">{dir === 'asc' ? '▲' : dir === 'desc' ? '▼' : '↕'}</span>
                         </button>
@@ -131,7 +145,7 @@ export function BoardTable({ rows, looks, fileName }: { rows: BoardRow[]; looks:
             {table.getRowModel().rows.map((row) => (
               <tr key={row.id} className="border-b border-paper-line last:border-0">
                 {row.getAllCells().map((cell) => (
-                  <td key={cell.id} className="whitespace-nowrap px-3 py-1.5 tabular"><table.FlexRender cell={cell} /></td>
+                  <td key={cell.id} className="px-2 py-1.5 align-top tabular"><table.FlexRender cell={cell} /></td>
                 ))}
               </tr>
             ))}

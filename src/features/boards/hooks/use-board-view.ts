@@ -1,4 +1,5 @@
 import { useEffect, useMemo, useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
 import type { BoardView } from '../../../../shared/schemas/board';
 import type { SwatchView } from '../../../../shared/schemas/swatch';
 import { useBoardTones } from '../api/get-board-tones';
@@ -11,8 +12,14 @@ import { boardRows, shownLooksOf, sortRows, swatchName, type BoardSort } from '.
 export function useBoardView(pid: number, b: BoardView | undefined, swatches: readonly SwatchView[] | undefined) {
   const [lookIds, setLookIds] = useState<number[]>([]);
   const [thresholds, setThresholds] = useState({ mergeStops: 1 / 3, mergeDeltaE: 10 });
-  const [sort, setSort] = useState<BoardSort>('tone');
-  const [sortLook, setSortLook] = useState(0);
+  // the chosen order is kept in the address (?sort=…&by=<look id>), so it survives a reload, a link and the way back
+  const [search, setSearch] = useSearchParams();
+  const sortParam = search.get('sort');
+  const sort: BoardSort = sortParam === 'name' || sortParam === 'eye' ? sortParam : 'tone';
+  const sortLook = Number(search.get('by') ?? 0) || 0;
+  const setParam = (k: string, v: string | null) => setSearch((q) => { const n = new URLSearchParams(q); if (v === null) n.delete(k); else n.set(k, v); return n; }, { replace: true });
+  const setSort = (s: BoardSort) => setParam('sort', s === 'tone' ? null : s);
+  const setSortLook = (id: number) => setParam('by', id ? String(id) : null);
   useEffect(() => {
     if (b) {
       setLookIds(b.lookIds);
