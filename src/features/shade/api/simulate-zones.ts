@@ -45,9 +45,10 @@ export const hexOfLab = (lab: [number, number, number]) => srgbToHex(linearToSrg
 export async function zonesThrough(looks: readonly SourcedLook[], surface: SurfaceSource, signal?: AbortSignal): Promise<LiveZones> {
   const named = { name: 'surface', ...surface };
   const physical = !('srgb' in surface);
-  const eye = simulate({ ...EYE_PATH, swatches: [named], ...(physical ? { spectra: true } : {}) }, signal);
-  const per = await Promise.all(
-    looks.map(async (l): Promise<LiveZone> => {
+  // all requests together, so a cancelled query (the signal aborted) rejects once, with no promise left unawaited
+  const [eyeAnswer, ...per] = await Promise.all([
+    simulate({ ...EYE_PATH, swatches: [named], ...(physical ? { spectra: true } : {}) }, signal),
+    ...looks.map(async (l): Promise<LiveZone> => {
       const swatches = l.key.surface ? [named, { name: 'key', ...l.key.surface }] : [named];
       const r = await simulate({ ...l.sources, swatches }, signal);
       const s = r.swatches[0];
@@ -55,9 +56,9 @@ export async function zonesThrough(looks: readonly SourcedLook[], surface: Surfa
       const zone = zoneFromStops(stops);
       return { lookId: l.id, lookName: l.name, stops, zone, numeral: zoneNumeral(zone), shift: s.shift };
     }),
-  );
-  const e = (await eye).swatches[0];
-  return { hex: 'srgb' in surface ? surface.srgb.toLowerCase() : hexOfLab(e.lab), reflectance: e.reflectance ?? null, looks: per };
+  ]);
+  const e = (eyeAnswer as Answer).swatches[0];
+  return { hex: 'srgb' in surface ? surface.srgb.toLowerCase() : hexOfLab(e.lab), reflectance: e.reflectance ?? null, looks: per as LiveZone[] };
 }
 
 /** The live zones of a surface being typed or slid (the caller debounces `surface`); the last answer stays while the next is computed. */
