@@ -23,6 +23,7 @@ import { AppError, NotFoundError } from './errors';
 import rateLimit from 'express-rate-limit';
 // ROUTER IMPORTS START
 import { exposureRouter } from './modules/exposure/exposure.router';
+import { lightPlanRouter } from './modules/light-plan/light-plan.router';
 import { simulateRouter } from './modules/simulate/simulate.router';
 import { shadeRouter } from './modules/shade/shade.router';
 import { libraryRouter } from './modules/library/library.router';
@@ -115,15 +116,9 @@ export async function createApp(opts: CreateAppOptions = {}): Promise<GrisailleA
   app.use('/api', teamRouter(ctx));
   app.use('/api', outboxRouter(ctx));
   // ROUTES START
-  app.use('/api', exposureRouter(ctx));
-  app.use('/api', simulateRouter(ctx));
-  app.use('/api', shadeRouter(ctx));
-  app.use('/api', libraryRouter(ctx));
-  app.use('/api', looksRouter(ctx));
-  app.use('/api', swatchesRouter(ctx));
-  app.use('/api', boardsRouter(ctx));
-  app.use('/api', sheetsRouter(ctx));
-  app.use('/api', photosRouter(ctx));
+  for (const router of [exposureRouter, lightPlanRouter, simulateRouter, shadeRouter, libraryRouter, looksRouter, swatchesRouter, boardsRouter, sheetsRouter, photosRouter]) {
+    app.use('/api', router(ctx));
+  }
   // ROUTES END
   app.use('/api', (_req, _res, next) => next(new NotFoundError('That API route')));
 

@@ -3,7 +3,7 @@ import type { ZodType } from 'zod';
 import type { Membership } from '../db/entities/membership.entity';
 import { validate } from '../middleware/validate';
 import type { AppContext } from '../context';
-import { requireRole } from '../middleware/require-role';
+import { requireAuth, requireRole } from '../middleware/require-role';
 import { NotFoundError } from '../errors';
 import type { Role } from '../../shared/schemas/roles';
 
@@ -83,5 +83,15 @@ export function itemRoutes<V>(
   productionRoute(r, ctx, 'delete', path, spec.write, handle(async (req, res) => {
     await svc.remove(req.membership!, id(req));
     res.status(204).end();
+  }));
+}
+
+/**
+ * A signed-in computation that answers a JSON body checked by `schema` (the engine's endpoints: simulate,
+ * shade, exposure, light plan): POST `path`, 401 without a session, 400 naming the field, then `run`.
+ */
+export function computeRoute<T>(r: Router, path: string, schema: ZodType, run: (body: T) => unknown): void {
+  r.post(path, requireAuth, validate(schema), handle(async (req, res) => {
+    res.json(await run(req.body as T));
   }));
 }

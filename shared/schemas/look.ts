@@ -105,3 +105,63 @@ export interface LookAnalysis {
   ratedEI: number | null;
   ms: number;
 }
+
+/** At most this many looks in one light budget. */
+export const MAX_LIGHT_BUDGET_LOOKS = 24;
+
+const cameraField = <T extends z.ZodType>(f: z.ZodDefault<T>) => f.unwrap().optional();
+
+/**
+ * Body of POST …/looks/light-budget: the looks to compare (the first is the reference) and, optionally,
+ * the camera the light levels are for; what is left out comes from the FIRST look's tone settings
+ * (its T-stop, fps, shutter angle and meter constant), for every look, so the levels compare.
+ */
+export const lightBudgetRequestSchema = z.strictObject({
+  lookIds: z.array(z.number().int().positive(), { error: 'Give lookIds as a list of look ids, e.g. [1, 2].' })
+    .min(1, 'Give at least one look.')
+    .max(MAX_LIGHT_BUDGET_LOOKS, `At most ${MAX_LIGHT_BUDGET_LOOKS} looks.`)
+    .refine((a) => new Set(a).size === a.length, 'Give each look once.'),
+  tStop: cameraField(toneSettingsSchema.shape.tStop),
+  fps: cameraField(toneSettingsSchema.shape.fps),
+  shutterAngle: cameraField(toneSettingsSchema.shape.shutterAngle),
+});
+export type LightBudgetRequest = z.input<typeof lightBudgetRequestSchema>;
+
+/** One look of a light budget; the figures are null for a look without an exposure index (the eye). */
+export interface LightBudgetLook {
+  lookId: number;
+  name: string;
+  /** effective EI (box speed, rating / development, every filter for its own light and medium), ISO third-stop label */
+  effectiveEI: number | null;
+  /** the same before rounding to the series */
+  exactEI: number | null;
+  /** incident light needed at the camera setting (ISO 2720), lux */
+  lux: number | null;
+  footcandles: number | null;
+  /** light needed relative to the first look: effective EI of the first / effective EI of this one (= ratio of the lux) */
+  relative: number | null;
+  /** log2(relative), stops */
+  stops: number | null;
+  /** the same ratio from the unrounded chains: 2^(stops between them), before the third-stop labels */
+  exactRelative: number | null;
+  /** the look's filters pass almost nothing its medium sees */
+  opaque: boolean;
+}
+
+/** Answer of POST …/looks/light-budget. */
+export interface LightBudgetAnswer {
+  looks: LightBudgetLook[];
+  /** the camera and meter the levels are for, and where each value came from */
+  camera: {
+    tStop: number;
+    fps: number;
+    shutterAngle: number;
+    /** incident-meter constant C, lux·s (the first look's) */
+    calibrationConstant: number;
+    exposureSeconds: number;
+    /** the look whose tone settings filled what the request left out (the first look) */
+    defaultsFrom: { lookId: number; name: string };
+    /** the fields taken from that look */
+    defaulted: ('tStop' | 'fps' | 'shutterAngle' | 'calibrationConstant')[];
+  };
+}

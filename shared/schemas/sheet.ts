@@ -2,9 +2,10 @@
  * The exposure sheet of a look: GET /api/productions/:productionId/looks/:lookId/sheet (JSON, for the
  * printable page) and …/sheet.pdf (the same content as a PDF). Documented in docs/api-sheets.md.
  */
+import { z } from 'zod';
 import type { ToneRange } from './board';
 import type { EiChainStepAnswer, ToneSettings } from './exposure';
-import type { FilterPlace } from './look';
+import type { FilterPlace, LightBudgetAnswer } from './look';
 
 /** The cautions every sheet carries (common practice on set; the production's own rules come first). */
 export const SHEET_CAUTIONS: readonly { title: string; text: string }[] = Object.freeze([
@@ -62,12 +63,16 @@ export interface SheetSwatch {
   blown: boolean;
   /** the look's key swatch */
   key: boolean;
+  /** what to watch: under the shadow-detail threshold (lost), close to it or able to cross it, blown, or nothing */
+  flag: SheetFlag | null;
   /** how far `stops` could move (same scale; zero width when measured) */
   range: ToneRange;
 }
 
 export interface ExposureSheet {
   production: { id: number; name: string };
+  /** the light this look needs against the production's other looks (the first look is 1×); null when it cannot be said (e.g. the eye) */
+  lightBudget: LightBudgetAnswer | null;
   look: { id: number; name: string; notes: string; updatedAt: string };
   /** light → filters (lens or light) → medium → development → print */
   lightPath: {
@@ -102,13 +107,64 @@ export interface ExposureSheet {
   cost: { ratio: number; stops: number; text: string } | null;
   key: { description: string; zone: number; numeral: string };
   thresholds: { shadowDetailStops: number; highlightRollOffStops: number };
-  /** swatches of the boards that use this look, key first, then lightest to darkest */
+  /** every swatch of the boards on the sheet (and the key swatch), key first, then lightest to darkest; none left off */
   swatches: SheetSwatch[];
-  /** swatches left off the sheet for room */
-  swatchesLeftOff: number;
-  /** the boards they come from */
+  /** the names of the boards on the sheet */
   boards: string[];
+  /** every board of the production, to pick the sheet's boards from (`?boards=`) */
+  boardChoices: SheetBoardChoice[];
+  /** true when the boards were picked (`?boards=`); false: the boards that show the look */
+  boardsPicked: boolean;
   notes: string;
   cautions: readonly { title: string; text: string }[];
   generatedAt: string;
 }
+
+/**
+ * A swatch's flag on the sheet. `lost`: under the shadow-detail threshold (texture lost); `near-lost`:
+ * within NEAR_THRESHOLD_STOPS of it, or its plausible range reaches under it; `blown`: over the highlight
+ * roll-off; `near-blown`: the same, mirrored.
+ */
+export type SheetFlag = 'lost' | 'near-lost' | 'blown' | 'near-blown';
+/**
+ * Within this many stops of a threshold a swatch is "near" it. Fact of the trade (common practice): shadow
+ * detail holds about 4 stops under the key on a classic negative and about 5 on a modern one, so the limit
+ * itself is known to about a stop.
+ */
+export const NEAR_THRESHOLD_STOPS = 1;
+/** The words of each flag, for the page and the PDF. */
+export const SHEET_FLAG_WORDS: Readonly<Record<SheetFlag, string>> = Object.freeze({
+  lost: 'texture lost',
+  'near-lost': 'near shadow limit',
+  blown: 'blown',
+  'near-blown': 'near highlight limit',
+});
+
+export interface SheetBoardChoice {
+  id: number;
+  name: string;
+  department: string;
+  swatchCount: number;
+  /** the board shows the look (one of its up to four looks) */
+  showsLook: boolean;
+  /** its swatches are on this sheet */
+  onSheet: boolean;
+}
+
+/** At most this many looks in one PDF of the day's sheets. */
+export const MAX_DAY_SHEETS = 24;
+
+/** A query parameter of comma-separated ids, e.g. "1,2,3" → [1, 2, 3] (repeats dropped, order kept); "" → []. */
+const idList = (what: string) =>
+  z.string().trim().refine((v) => v === '' || /^\d+(\s*,\s*\d+)*$/.test(v), `Give ${what} ids as numbers separated by commas, e.g. 1,2,3.`)
+    .transform((v) => [...new Set(v === '' ? [] : v.split(',').map((x) => Number(x.trim())))])
+    .refine((a) => a.every((n) => Number.isSafeInteger(n) && n > 0), `Give ${what} ids as positive whole numbers.`);
+
+/** GET …/looks/:lookId/sheet(.pdf)?boards=1,2: the boards whose swatches the sheet lists (absent: the boards that show the look). */
+export const sheetQuerySchema = z.object({ boards: idList('board').optional() });
+/** GET /api/productions/:id/sheets.pdf?looks=1,2,3: the looks, one sheet after another. */
+export const daySheetsQuerySchema = z.object({
+  looks: z.string({ error: 'Choose the looks: looks=1,2,3.' }).pipe(idList('look'))
+    .refine((a) => a.length > 0, 'Choose at least one look.')
+    .refine((a) => a.length <= MAX_DAY_SHEETS, `At most ${MAX_DAY_SHEETS} looks in one PDF.`),
+});

@@ -37,6 +37,7 @@ const productionPages: RouteObject[] = [
   { path: P.boards(), ...page(() => import('./routes/boards')) },
   { path: P.board(':boardId'), ...page(() => import('./routes/board')) },
   { path: P.photos(), ...page(() => import('./routes/photos')) },
+  { path: P.lampPlan(), ...page(() => import('./routes/lamp-plan')) },
   // PRODUCTION ROUTES END
 ];
 

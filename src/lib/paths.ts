@@ -32,6 +32,8 @@ export const paths = {
       boards: () => `${base}/boards`,
       board: (id: Id) => `${base}/boards/${id}`,
       photos: () => `${base}/photos`,
+      /** the gaffer's lamp plan; `lookId` starts it from that look's EI, camera and shadow threshold */
+      lampPlan: (lookId?: Id) => (lookId === undefined ? `${base}/lamp-plan` : `${base}/lamp-plan?look=${lookId}`),
     };
   },
 };
@@ -59,6 +61,8 @@ export const apiPaths = {
   simulate: () => '/api/simulate',
   /** POST: the colour nearest a given one that lands on a zone (or stops) through a light path */
   shade: () => '/api/shade',
+  /** POST: lamps by intensity and distance against the level an EI and T-stop need, key-to-fill against the shadow threshold */
+  lightPlan: () => '/api/light-plan',
   upsampleTable: () => '/api/library/upsample-table',
   outbox: () => '/api/admin/outbox',
   productions: () => '/api/productions',
@@ -78,6 +82,8 @@ export const apiPaths = {
         analysis: () => `${base}/looks/${id}/analysis`,
         sheet: () => `${base}/looks/${id}/sheet`,
         sheetPdf: () => `${base}/looks/${id}/sheet.pdf`,
+        /** GET: the look as a monitoring table for download (`format` cube | clf, `size` 17..65) */
+        lut: (q: { format: 'cube' | 'clf'; size: number }) => `${base}/looks/${id}/lut${query(new URLSearchParams({ format: q.format, size: String(q.size) }))}`,
       }),
       curves: () => `${base}/curves`,
       curve: (id: number) => `${base}/curves/${id}`,

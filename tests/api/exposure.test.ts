@@ -1,5 +1,5 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApp, type TestApp, type Agent } from '../helpers/api';
+import { describe, expect, it } from 'vitest';
+import { signedInForFile } from '../helpers/api';
 import { exposureResponseSchema } from '../../shared/schemas/exposure';
 
 /** Shared default tolerance for this file (relative). */
@@ -11,19 +11,13 @@ const EFFECTIVE_EI = 80;
 const LUX_T28_EI100 = 940.8;
 const FC_T28_EI100 = 940.8 * 0.3048 ** 2;
 
-let t: TestApp;
-let a: Agent;
-beforeAll(async () => {
-  t = await startTestApp();
-  a = await t.agent('camera@demo.grisaille.test');
-});
-afterAll(async () => t.close());
+const { app, agent } = signedInForFile('camera@demo.grisaille.test');
 
 const rel = (x: number, y: number) => Math.abs(x / y - 1);
 
 describe('POST /api/exposure', () => {
   it('answers the EI chain with each step and the effective EI', async () => {
-    const r = await a.post('/api/exposure').send({ boxSpeed: 250, ratingStops: -0.667, filterStops: 1 });
+    const r = await agent().post('/api/exposure').send({ boxSpeed: 250, ratingStops: -0.667, filterStops: 1 });
     expect(r.status).toBe(200);
     expect(exposureResponseSchema.safeParse(r.body).success).toBe(true);
     expect(r.body.effectiveEI).toBe(EFFECTIVE_EI);
@@ -36,7 +30,7 @@ describe('POST /api/exposure', () => {
   });
 
   it('answers the light level with the calibration constant used', async () => {
-    const r = await a.post('/api/exposure').send({ ei: 100, tStop: 2.8, fps: 24, shutterAngle: 180 });
+    const r = await agent().post('/api/exposure').send({ ei: 100, tStop: 2.8, fps: 24, shutterAngle: 180 });
     expect(r.status).toBe(200);
     expect(r.body.calibrationConstant).toBe(250);
     expect(r.body.calibrationNote).toMatch(/ISO 2720/);
@@ -48,14 +42,14 @@ describe('POST /api/exposure', () => {
   });
 
   it('takes a settable constant', async () => {
-    const r = await a.post('/api/exposure').send({ ei: 100, tStop: 2.8, fps: 24, shutterAngle: 180, calibrationConstant: 330 });
+    const r = await agent().post('/api/exposure').send({ ei: 100, tStop: 2.8, fps: 24, shutterAngle: 180, calibrationConstant: 330 });
     expect(r.status).toBe(200);
     expect(r.body.calibrationConstant).toBe(330);
     expect(rel(r.body.lux, (LUX_T28_EI100 * 330) / 250)).toBeLessThan(TOL);
   });
 
   it('combines both: the light level at the effective EI, and the cost of the filter in light', async () => {
-    const r = await a.post('/api/exposure').send({ boxSpeed: 250, ratingStops: -0.667, filterStops: 1.667, tStop: 2.8, fps: 24, shutterAngle: 180 });
+    const r = await agent().post('/api/exposure').send({ boxSpeed: 250, ratingStops: -0.667, filterStops: 1.667, tStop: 2.8, fps: 24, shutterAngle: 180 });
     expect(r.status).toBe(200);
     expect(r.body.effectiveEI).toBe(50);
     expect(r.body.ei).toBe(50);
@@ -67,7 +61,7 @@ describe('POST /api/exposure', () => {
   });
 
   it('refuses without a session (401)', async () => {
-    const anon = await t.agent();
+    const anon = await app().agent();
     const r = await anon.post('/api/exposure').send({ boxSpeed: 250 });
     expect(r.status).toBe(401);
   });
@@ -88,7 +82,7 @@ describe('POST /api/exposure', () => {
     [{ boxSpeed: 250, ei: 100, tStop: 2.8, fps: 24, shutterAngle: 180 }, 'ei'],
     [{ ei: 100, tStop: 2.8, fps: 24, shutterAngle: 180, calibrationConstant: 0 }, 'calibrationConstant'],
   ])('400 naming the field for %j', async (body, field) => {
-    const r = await a.post('/api/exposure').send(body);
+    const r = await agent().post('/api/exposure').send(body);
     expect(r.status).toBe(400);
     expect(r.body.error.code).toBe('invalid');
     expect(r.body.error.field).toBe(field);

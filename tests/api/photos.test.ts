@@ -175,6 +175,30 @@ describe('full-resolution renders', () => {
     expect([jm.format, jm.channels, jm.width]).toEqual(['jpeg', 1, 1600]);
   });
 
+  it('names the downloaded render after the photo and the look: UTF-8 kept (RFC 6266 filename*), no path characters, "retuned" for live changes', async () => {
+    const p = (await upload(makeup, await sceneJpeg(300, 200), 'x.jpg')).body.photo;
+    expect((await makeup.patch(`${base()}/${p.id}`).send({ name: 'Crème brûlée ../../etc/"passwd"' })).status).toBe(200);
+    await render(makeup, p.id, { lookId, format: 'jpeg' });
+    // the status polled by key does not know the look; the answer to a request by lookId names it in the url
+    const done = { status: (await makeup.post(`${base()}/${p.id}/renders`).send({ lookId, format: 'jpeg' })).body.render };
+    expect(done.status.url).toMatch(new RegExp(`/renders/${done.status.key}/file\\?look=${lookId}$`));
+    const disposition = (url: string) => makeup.get(url).buffer(true).parse(binary).then((r) => ({ status: r.status, cd: String(r.headers['content-disposition']) }));
+    const named = await disposition(done.status.url);
+    expect(named.status).toBe(200);
+    const utf8 = decodeURIComponent(/filename\*=UTF-8''([^;]+)/.exec(named.cd)![1]);
+    expect(utf8).toBe(`Crème-brûlée-etc-passwd_Photo-test-red-long-pass_${done.status.key.slice(0, 8)}.jpg`);
+    expect(named.cd).toMatch(/^attachment; filename="[^"/\\]+\.jpg"/);
+    // the live changes of that look, rendered unsaved: named after the look, retuned
+    const retuned = await render(makeup, p.id, { look: { ...TEST_LOOK, tone: { printGrade: 4 } }, format: 'jpeg' });
+    expect(retuned.status.url).not.toContain('?look=');
+    const r2 = await disposition(`${retuned.status.url}?look=${lookId}`);
+    expect(decodeURIComponent(/filename\*=UTF-8''([^;]+)/.exec(r2.cd)![1])).toBe(`Crème-brûlée-etc-passwd_Photo-test-red-long-pass-retuned_${retuned.status.key.slice(0, 8)}.jpg`);
+    // no look: the photo's name and "grey"; a malformed look id: 400 naming the field
+    expect((await disposition(retuned.status.url.split('?')[0])).cd).toContain(`_grey_${retuned.status.key.slice(0, 8)}.jpg`);
+    const bad = await makeup.get(`${retuned.status.url}?look=1;rm`);
+    expect([bad.status, bad.body.error?.field]).toEqual([400, 'look']);
+  });
+
   it('refuses a look from elsewhere and bad input with a message naming the field', async () => {
     const p = (await upload(makeup, await sceneJpeg(300, 200), 'bad.jpg')).body.photo;
     expect((await makeup.post(`${base()}/${p.id}/renders`).send({ lookId: 99999 })).status).toBe(404);

@@ -4,7 +4,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, type Agent, type TestApp } from '../helpers/api';
-import type { ExposureSheet } from '../../shared/schemas/sheet';
+import { NEAR_THRESHOLD_STOPS, type ExposureSheet } from '../../shared/schemas/sheet';
 
 /** Shared default tolerance for this file (relative). */
 const TOL = 1e-6;
@@ -149,5 +149,162 @@ describe('GET …/looks/:lookId/sheet', () => {
     for (const w of s.swatches) expect(w.zone).toBeCloseTo(5 + w.stops, 9);
     // lightest first
     for (let i = 1; i < s.swatches.length; i++) expect(s.swatches[i].stops).toBeLessThanOrEqual(s.swatches[i - 1].stops);
+  });
+});
+
+/** More swatches than the sheet's old cut of 30: every one must be listed. */
+const MANY = 36;
+/** Stage blood, dark and red: among the darkest swatches, the kind the old cut of 30 left off (the issue's report). */
+const BLOOD = { name: 'Stage blood, dried', hex: '#3a0a0c' };
+/** A grey ramp from black to white, one step per swatch (names sort with their number). */
+const stepName = (i: number) => `Ramp step ${String(i + 1).padStart(2, '0')}`;
+const stepHex = (i: number) => {
+  const v = Math.round((i / (MANY - 2)) * 255).toString(16).padStart(2, '0');
+  return `#${v}${v}${v}`;
+};
+
+/** PDFs kept to look at (test-output/ is ignored by git): render a page with `pdftoppm -png -r 60`. */
+const KEEP_DIR = path.resolve('test-output/sheets');
+/** Text of each page of a PDF (pdftotext -f n -l n); the file is kept as test-output/sheets/<keep>.pdf. */
+function pdfPages(pdf: Buffer, keep: string): string[] {
+  fs.mkdirSync(KEEP_DIR, { recursive: true });
+  const file = path.join(KEEP_DIR, `${keep}.pdf`);
+  fs.writeFileSync(file, pdf);
+  const info = execFileSync('pdfinfo', [file], { encoding: 'utf8' });
+  const pages = Number(/^Pages:\s+(\d+)/m.exec(info)![1]);
+  return Array.from({ length: pages }, (_, i) => execFileSync('pdftotext', ['-layout', '-f', String(i + 1), '-l', String(i + 1), file, '-'], { encoding: 'utf8' }));
+}
+
+describe('a complete sheet: every swatch, the darkest flagged, boards picked, several looks in one PDF', () => {
+  let boardId: number;
+  let freshLookId: number;
+  const names: string[] = [];
+  const base = () => `/api/productions/${t.demoProductionId}`;
+
+  beforeAll(async () => {
+    const ids: number[] = [];
+    for (let i = 0; i < MANY - 1; i++) {
+      const r = await camera.post(`${base()}/swatches`).send({ name: stepName(i), origin: { type: 'colour', colour: { space: 'hex', hex: stepHex(i) } } });
+      expect(r.status).toBe(201);
+      ids.push(r.body.swatch.id);
+      names.push(stepName(i));
+    }
+    const blood = await camera.post(`${base()}/swatches`).send({ name: BLOOD.name, origin: { type: 'colour', colour: { space: 'hex', hex: BLOOD.hex } } });
+    expect(blood.status).toBe(201);
+    ids.push(blood.body.swatch.id);
+    names.push(BLOOD.name);
+    const board = await camera.post(`${base()}/boards`).send({ name: 'Long ramp', lookIds: [lookId], swatchIds: ids });
+    expect(board.status).toBe(201);
+    boardId = board.body.board.id;
+    // a look made now, which no board shows yet
+    const fresh = await camera.post(`${base()}/looks`).send({ name: 'Made this morning', light: { source: { id: 'tungsten-3200' } }, medium: { source: { id: 'panchromatic' } } });
+    expect(fresh.status).toBe(201);
+    freshLookId = fresh.body.look.id;
+  });
+
+  it('the JSON lists every swatch of a board of more than 30, lightest to darkest, the darkest flagged', async () => {
+    const r = await lab.get(`${base()}/looks/${lookId}/sheet`);
+    expect(r.status).toBe(200);
+    const s = r.body.sheet as ExposureSheet;
+    expect(s.swatches.length).toBe(MANY);
+    expect(s.swatches.map((w) => w.name).sort()).toEqual([...names].sort());
+    expect(s).not.toHaveProperty('swatchesLeftOff');
+    for (let i = 1; i < s.swatches.length; i++) expect(s.swatches[i].stops).toBeLessThanOrEqual(s.swatches[i - 1].stops);
+    // the flags follow the thresholds in force
+    const shadow = -s.thresholds.shadowDetailStops;
+    for (const w of s.swatches) {
+      expect(w.lost).toBe(w.stops < shadow);
+      if (w.lost) expect(w.flag).toBe('lost');
+      else if (w.blown) expect(w.flag).toBe('blown');
+      else if (w.stops < shadow + NEAR_THRESHOLD_STOPS) expect(w.flag).toBe('near-lost');
+    }
+    expect(s.swatches.at(-1)!.flag).toBe('lost'); // black is under every medium's shadow-detail threshold
+    expect(s.boards).toContain('Long ramp');
+    expect(s.boardsPicked).toBe(false);
+    expect(s.boardChoices.find((b) => b.id === boardId)).toMatchObject({ name: 'Long ramp', swatchCount: MANY, showsLook: true, onSheet: true });
+  });
+
+  it('the PDF of one look lists every swatch, over pages with the table header on each, the threshold drawn', async () => {
+    const r = await getBytes(lab, `${base()}/looks/${lookId}/sheet.pdf`);
+    expect(r.status).toBe(200);
+    const pages = pdfPages(r.body as Buffer, 'sheet-36-swatches');
+    expect(pages.length).toBeGreaterThanOrEqual(2);
+    const text = pages.join('\n');
+    for (const n of names) expect(text).toContain(n);
+    expect(text).toContain('Shadow-detail threshold');
+    expect(text).toContain('texture lost');
+    expect(text).toMatch(new RegExp(`${MANY} swatches, every one on the boards`));
+    // every page that carries a swatch row carries the table header too
+    const withRows = pages.filter((p) => names.some((n) => p.includes(n)));
+    expect(withRows.length).toBeGreaterThanOrEqual(2);
+    for (const p of withRows) expect(p).toMatch(/Colour · grey\s+Swatch\s+Board/);
+    pages.forEach((p, i) => expect(p).toContain(`Page ${i + 1} of ${pages.length}`));
+  });
+
+  it('a newly made look shows on no board, and the sheet lists the boards picked with ?boards=', async () => {
+    const plain = (await lab.get(`${base()}/looks/${freshLookId}/sheet`)).body.sheet as ExposureSheet;
+    expect(plain.swatches).toEqual([]);
+    expect(plain.boardsPicked).toBe(false);
+    const choice = plain.boardChoices.find((b) => b.id === boardId)!;
+    expect(choice).toMatchObject({ showsLook: false, onSheet: false, swatchCount: MANY });
+
+    const picked = await lab.get(`${base()}/looks/${freshLookId}/sheet?boards=${boardId}`);
+    expect(picked.status).toBe(200);
+    const s = picked.body.sheet as ExposureSheet;
+    expect(s.swatches.length).toBe(MANY);
+    expect(s.boardsPicked).toBe(true);
+    expect(s.boards).toEqual(['Long ramp']);
+    expect(s.boardChoices.find((b) => b.id === boardId)).toMatchObject({ showsLook: false, onSheet: true });
+
+    const pdf = await getBytes(lab, `${base()}/looks/${freshLookId}/sheet.pdf?boards=${boardId}`);
+    expect(pdf.status).toBe(200);
+    expect(pdfText(pdf.body as Buffer)).toContain(BLOOD.name);
+  });
+
+  it('?boards= answers 400 naming boards for a board of another production or a bad list', async () => {
+    for (const q of ['999999', `${boardId},999999`, 'abc', '1;2']) {
+      const r = await lab.get(`${base()}/looks/${lookId}/sheet?boards=${encodeURIComponent(q)}`);
+      expect(r.status).toBe(400);
+      expect(r.body.error.field).toBe('boards');
+      expect(r.body.error.message).toMatch(/^boards: /);
+    }
+  });
+
+  it('GET …/sheets.pdf?looks= gives the sheets of several looks, each starting on a new page', async () => {
+    const looks = [lookId, freshLookId];
+    const r = await getBytes(lab, `${base()}/sheets.pdf?looks=${looks.join(',')}`);
+    expect(r.status).toBe(200);
+    expect(r.headers['content-type']).toMatch(/^application\/pdf/);
+    expect(r.headers['content-disposition']).toMatch(/attachment; filename="exposure-sheets-the-clockmakers-winter-2-looks\.pdf"/);
+    const pages = pdfPages(r.body as Buffer, 'sheets-of-the-day');
+    expect(pages.length).toBeGreaterThanOrEqual(looks.length);
+    // a sheet starts where its heading is; each look's starts on a page of its own, in the order asked
+    const starts = pages.flatMap((p, i) => (p.includes('EXPOSURE SHEET') ? [i] : []));
+    expect(starts.length).toBe(looks.length);
+    expect(pages[starts[0]]).toContain(LOOK_NAME);
+    expect(pages[starts[1]]).toContain('Made this morning');
+    expect(pages[starts[1]]).not.toContain(LOOK_NAME);
+    expect(starts[1]).toBeGreaterThan(starts[0]);
+    // the first look's long table is complete before the second begins
+    const first = pages.slice(0, starts[1]).join('\n');
+    for (const n of names) expect(first).toContain(n);
+    expect(pages[starts[1] - 1]).toContain(`Sheet 1 of ${looks.length}`);
+    expect(pages.at(-1)).toContain(`Sheet ${looks.length} of ${looks.length}`);
+  });
+
+  it('GET …/sheets.pdf answers 400 naming looks when a look is missing, not in the production, or not an id', async () => {
+    for (const q of ['', '?looks=', '?looks=abc', `?looks=${lookId},${strangerLookId}`, '?looks=999999', `?looks=${Array.from({ length: 25 }, (_, i) => i + 1).join(',')}`]) {
+      const r = await lab.get(`${base()}/sheets.pdf${q}`);
+      expect(r.status, q).toBe(400);
+      expect(r.body.error.field).toBe('looks');
+      expect(r.body.error.message).toMatch(/^looks: /);
+    }
+    const r = await lab.get(`${base()}/sheets.pdf?looks=${lookId},${strangerLookId}`);
+    expect(r.body.error.message).toContain(String(strangerLookId));
+  });
+
+  it('GET …/sheets.pdf answers 401 without a session', async () => {
+    const anon = await t.agent();
+    expect((await anon.get(`${base()}/sheets.pdf?looks=${lookId}`)).status).toBe(401);
   });
 });

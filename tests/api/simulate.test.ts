@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import { GRID_SIZE } from '../../shared/spectral/policy';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startTestApp, type TestApp, type Agent } from '../helpers/api';
+import { describe, expect, it } from 'vitest';
+import { signedInForFile } from '../helpers/api';
 import { decodeUpsampleTable, UPSAMPLE_METHOD } from '../../shared/spectral/upsample-table';
 import { upsampleCacheFile } from '../../server/services/upsample-table';
 
@@ -10,19 +10,13 @@ const TOL = 1e-6;
 /** Middle grey: 0.18 (common practice). */
 const GREY = 0.18;
 
-let t: TestApp;
-let a: Agent;
-beforeAll(async () => {
-  t = await startTestApp();
-  a = await t.agent('lab@demo.grisaille.test'); // a viewer: the engine needs no production role
-});
-afterAll(async () => t.close());
+const { app, agent } = signedInForFile('lab@demo.grisaille.test'); // a viewer: the engine needs no production role
 
 const flatGrey = [[380, GREY], [580, GREY], [780, GREY]];
 
 describe('POST /api/simulate', () => {
   it('answers filter factor and tones per swatch, as documented', async () => {
-    const r = await a.post('/api/simulate').send({
+    const r = await agent().post('/api/simulate').send({
       light: { cie: 'D65' },
       filters: [{ id: 'red-590' }],
       medium: { id: 'panchromatic' },
@@ -46,13 +40,13 @@ describe('POST /api/simulate', () => {
 
   it('accepts daylight, blackbody, samples, LED and gels', async () => {
     for (const light of [{ daylight: 5600 }, { blackbody: 3200, gels: [{ id: 'cyan-530' }] }, { samples: [[380, 1], [780, 1], [550, 1]] }, { id: 'white-led' }]) {
-      const r = await a.post('/api/simulate').send({ light, medium: { id: 'orthochromatic' }, swatches: [{ name: 'g', reflectance: flatGrey }] });
+      const r = await agent().post('/api/simulate').send({ light, medium: { id: 'orthochromatic' }, swatches: [{ name: 'g', reflectance: flatGrey }] });
       expect(r.status, JSON.stringify(light)).toBe(200);
     }
   });
 
   it('flags an effectively opaque filter', async () => {
-    const r = await a.post('/api/simulate').send({ light: { id: 'd65' }, filters: [{ id: 'red-590' }], medium: { id: 'orthochromatic' } });
+    const r = await agent().post('/api/simulate').send({ light: { id: 'd65' }, filters: [{ id: 'red-590' }], medium: { id: 'orthochromatic' } });
     expect(r.status).toBe(200);
     expect(r.body.opaque).toBe(true);
   });
@@ -64,14 +58,14 @@ describe('POST /api/simulate', () => {
     [{ light: { cie: 'D65' }, medium: { id: 'panchromatic' }, swatches: [{ name: 'x', lab: [50, 150, 0] }] }, 'swatches.0.lab', /outside the sRGB gamut/],
     [{ light: { cie: 'D65' } }, 'medium', /.+/],
   ])('400 names the field: %#', async (body, field, message) => {
-    const r = await a.post('/api/simulate').send(body);
+    const r = await agent().post('/api/simulate').send(body);
     expect(r.status).toBe(400);
     expect(r.body.error.field).toBe(field);
     expect(r.body.error.message).toMatch(message);
   });
 
   it('needs a session', async () => {
-    const anon = await t.agent();
+    const anon = await app().agent();
     expect((await anon.post('/api/simulate').send({ light: { cie: 'D65' }, medium: { id: 'eye' } })).status).toBe(401);
     expect((await anon.get('/api/library')).status).toBe(401);
     expect((await anon.get('/api/library/upsample-table')).status).toBe(401);
@@ -80,7 +74,7 @@ describe('POST /api/simulate', () => {
 
 describe('GET /api/library', () => {
   it('lists lights, filters and media with ids, names, descriptions, kind and curves on the working grid', async () => {
-    const r = await a.get('/api/library');
+    const r = await agent().get('/api/library');
     expect(r.status).toBe(200);
     expect(r.body.grid).toEqual({ startNm: 350, endNm: 900, stepNm: 1 }); // shared/spectral/policy.ts
     const kinds = new Set(r.body.items.map((i: { kind: string }) => i.kind));
@@ -97,7 +91,7 @@ describe('GET /api/library', () => {
 
 describe('GET /api/library/upsample-table', () => {
   it('serves the coefficient table as binary and caches it in DATA_DIR/cache', async () => {
-    const r = await a.get('/api/library/upsample-table').buffer(true).parse((res, cb) => {
+    const r = await agent().get('/api/library/upsample-table').buffer(true).parse((res, cb) => {
       const chunks: Buffer[] = [];
       res.on('data', (c: Buffer) => chunks.push(c));
       res.on('end', () => cb(null, Buffer.concat(chunks)));
@@ -106,6 +100,6 @@ describe('GET /api/library/upsample-table', () => {
     expect(r.headers['content-type']).toMatch(/application\/octet-stream/);
     const table = decodeUpsampleTable(new Uint8Array(r.body as Buffer));
     expect(table.resolution).toBe(UPSAMPLE_METHOD.resolution);
-    expect(fs.existsSync(upsampleCacheFile(t.dataDir))).toBe(true);
+    expect(fs.existsSync(upsampleCacheFile(app().dataDir))).toBe(true);
   });
 });

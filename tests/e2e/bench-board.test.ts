@@ -5,7 +5,7 @@
  */
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openSignedIn, shot as shotAt, useAppAndBrowser } from '../helpers/browser';
+import { SHOTS_DIR, openSignedIn, shot as shotAt, useAppAndBrowser } from '../helpers/browser';
 
 const env = useAppAndBrowser();
 let pid = 0;
@@ -60,6 +60,22 @@ it('builds a look from scratch on the bench and the filter factor follows the fi
   await p.getByTestId('split-chip').first().waitFor();
   await shot(p, 'bench-03-compare');
   expect(errors).toEqual([]);
+});
+
+it('at a laptop’s 1280 × 800 the bench shows the light path and, beside it, the board’s tones without scrolling', async () => {
+  const signedIn = await openSignedIn(env, 'camera@demo.grisaille.test', { viewport: { width: 1280, height: 800 } });
+  const p = signedIn.page;
+  await p.goto(`${env.app.url}/p/${signedIn.pid}/bench`);
+  await p.waitForURL(/\/bench\/\d+$/);
+  const chip = p.getByTestId('split-chip').first();
+  await chip.waitFor();
+  const chipBox = (await chip.boundingBox())!;
+  const light = (await p.getByLabel('Light', { exact: true }).boundingBox())!;
+  // the board's first row of chips is on the first screen, to the right of the light path
+  expect(chipBox.y + chipBox.height).toBeLessThan(800);
+  expect(chipBox.x).toBeGreaterThan(light.x + light.width);
+  await p.screenshot({ path: `${SHOTS_DIR}/bench-00-laptop-first-screen.png` });
+  expect(signedIn.errors).toEqual([]);
 });
 
 it('the makeup member adds a lip colour by hex, sees its zone through each look, and finds it on the board', async () => {

@@ -105,6 +105,10 @@ it('the exposure sheet opens from the bench, prints, and downloads as a PDF that
   expect(couldRead.length).toBeGreaterThan(0);
   for (const c of couldRead) expect(c.trim()).toMatch(/^(measured|(0|I|II|III|IV|V|VI|VII|VIII|IX|X)(–(0|I|II|III|IV|V|VI|VII|VIII|IX|X))?)$/);
   expect(couldRead.some((c) => c.includes('–'))).toBe(true);
+  // every swatch of the boards that show the look is a row: none left off
+  const sheetJson = await page.evaluate(([p, l]) => fetch(`/api/productions/${p}/looks/${l}/sheet`).then((r) => r.json()), [pid, cyan.id]);
+  expect(await page.getByTestId('sheet-swatch-row').count()).toBe(sheetJson.sheet.swatches.length);
+  await page.getByTestId('sheet-swatch-count').getByText(new RegExp(`^${sheetJson.sheet.swatches.length} swatches, every one on the boards`)).waitFor();
   await shot(page, 'exposure-05-sheet');
   await page.emulateMedia({ media: 'print' });
   expect(await page.getByRole('button', { name: 'Print' }).isVisible()).toBe(false);
@@ -123,5 +127,58 @@ it('the exposure sheet opens from the bench, prints, and downloads as a PDF that
   // pages as images, to look at (poppler's pdftoppm)
   execFileSync('pdftoppm', ['-png', '-r', '80', file, path.join(SHOTS_DIR, 'exposure-08-sheet-pdf')]);
   expect(fs.existsSync(path.join(SHOTS_DIR, 'exposure-08-sheet-pdf-1.png'))).toBe(true);
+  expect(errors).toEqual([]);
+});
+
+it('a new look is offered the production’s boards on its sheet, and the day’s looks download as one PDF', async () => {
+  const { page, errors, pid } = await openSignedIn(env, 'camera@demo.grisaille.test', { viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+  // a look made now (through the API, as the Looks page does), which no board shows
+  const made = await page.evaluate(async (p) => {
+    const { csrfToken } = await fetch('/api/auth/csrf').then((r) => r.json());
+    const r = await fetch(`/api/productions/${p}/looks`, {
+      method: 'POST', headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': csrfToken },
+      body: JSON.stringify({ name: 'Sheet pick, made today', light: { source: { id: 'tungsten-3200' } }, medium: { source: { id: 'panchromatic' } } }),
+    });
+    return (await r.json()).look as { id: number; name: string };
+  }, pid);
+  const boards: { id: number; name: string; swatchIds: number[] }[] = (await page.evaluate((p) => fetch(`/api/productions/${p}/boards`).then((r) => r.json()), pid)).boards;
+  const board = boards.find((b) => b.swatchIds.length > 0)!;
+
+  await page.goto(`${env.app.url}/p/${pid}/looks/${made.id}/sheet`);
+  await page.getByRole('heading', { name: made.name }).waitFor();
+  await page.getByTestId('sheet-no-board').waitFor();
+  expect(await page.getByTestId('sheet-swatch-row').count()).toBe(0);
+  await shot(page, 'exposure-09-sheet-new-look-no-board');
+
+  // pick a board: every one of its swatches is listed, the pick is in the address and in the PDF link
+  // (a click, not check(): the pick goes through the address, so the box turns on once the router has moved)
+  const box = page.getByTestId('sheet-board-picker').getByRole('checkbox', { name: new RegExp(board.name) });
+  await box.click();
+  await page.waitForURL(new RegExp(`boards=${board.id}$`));
+  await page.waitForFunction((name) => [...document.querySelectorAll<HTMLInputElement>('[data-testid="sheet-board-picker"] label')].some((l) => l.textContent?.includes(name) && l.querySelector('input')?.checked), board.name);
+  await page.getByTestId('sheet-swatch-row').first().waitFor();
+  await page.waitForFunction((n) => document.querySelectorAll('[data-testid="sheet-swatch-row"]').length === n, board.swatchIds.length);
+  expect(await page.getByRole('link', { name: 'Download PDF' }).getAttribute('href')).toContain(`sheet.pdf?boards=${board.id}`);
+  await shot(page, 'exposure-10-sheet-board-picked');
+
+  // the day's looks in one PDF: this one and the cyan look, each starting on a page of its own
+  const looks: { id: number; name: string }[] = (await page.evaluate((p) => fetch(`/api/productions/${p}/looks`).then((r) => r.json()), pid)).looks;
+  const cyan = looks.find((l) => l.name === 'Panchromatic + red-absorbing cyan')!;
+  const day = page.getByTestId('day-sheets');
+  await day.getByText('PDF of the day’s looks…').click();
+  await day.getByRole('checkbox', { name: cyan.name }).check();
+  const link = day.getByRole('link', { name: 'Download 2 sheets (PDF)' });
+  expect(await link.getAttribute('href')).toBe(`/api/productions/${pid}/sheets.pdf?looks=${cyan.id},${made.id}`);
+  await shot(page, 'exposure-11-sheet-day-looks');
+  const [download] = await Promise.all([page.waitForEvent('download'), link.click()]);
+  expect(download.suggestedFilename()).toMatch(/^exposure-sheets-.+-2-looks\.pdf$/);
+  const file = path.join(SHOTS_DIR, 'exposure-12-day-sheets.pdf');
+  await download.saveAs(file);
+  const pages = Number(/^Pages:\s+(\d+)/m.exec(execFileSync('pdfinfo', [file], { encoding: 'utf8' }))![1]);
+  expect(pages).toBeGreaterThanOrEqual(2);
+  const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+  expect(text).toContain(cyan.name);
+  expect(text).toContain(made.name);
+  execFileSync('pdftoppm', ['-png', '-r', '60', file, path.join(SHOTS_DIR, 'exposure-13-day-sheets-pdf')]);
   expect(errors).toEqual([]);
 });

@@ -54,8 +54,8 @@ function pixelAt(page: Page, fx: number, fy: number) {
   }, [fx, fy]);
 }
 
-it('a makeup artist uploads a photo, retunes the look live, wipes, compares, renders it and keeps a sampled region as a swatch', async () => {
-  const { page, errors, pid } = await openSignedIn(env, 'makeup@demo.grisaille.test', { viewport: { width: 1440, height: 900 } });
+it('a makeup artist uploads a photo, retunes the look live, wipes, compares, renders it and keeps a region read from it as a swatch', async () => {
+  const { page, errors, pid } = await openSignedIn(env, 'makeup@demo.grisaille.test', { viewport: { width: 1280, height: 800 } });
   await page.goto(`${env.app.url}/p/${pid}`);
   await page.getByRole('navigation', { name: 'Production' }).getByRole('link', { name: 'Photos' }).click();
   await page.getByRole('heading', { name: 'Photos', level: 1 }).waitFor();
@@ -67,6 +67,8 @@ it('a makeup artist uploads a photo, retunes the look live, wipes, compares, ren
   await lutReady(page);
   const canvasWidth = await page.locator('canvas[data-renderer]').evaluate((c: HTMLCanvasElement) => c.width);
   expect(canvasWidth).toBeGreaterThanOrEqual(MIN_PREVIEW_WIDTH);
+  // the size line gives the preview's size and the photo's own
+  await page.getByTestId('preview-timing').getByText(/^Preview \d+ × \d+ px of a 2400 × 1600 px photo, WebGL2/).waitFor();
   await shot(page, 'photos-01-uploaded-look');
 
   // live: the light's colour temperature, then a filter's cut-off on the cyan look
@@ -95,30 +97,74 @@ it('a makeup artist uploads a photo, retunes the look live, wipes, compares, ren
   expect(Math.max(...left) - Math.min(...left)).toBeGreaterThan(5);
   await shot(page, 'photos-04-wipe');
 
-  // compare three looks side by side
+  // compare three looks side by side: the cells keep the looks' list order, whatever order they are ticked in
   await page.getByRole('button', { name: 'Compare' }).click();
   await page.waitForFunction(() => document.querySelectorAll('canvas[data-renderer]:not([data-lut-key=""])').length >= 3, undefined, { timeout: 60_000 });
+  const choice = page.locator('fieldset', { has: page.locator('legend', { hasText: 'Looks to compare' }) });
+  const boxes = choice.locator('input[type=checkbox]');
+  await boxes.nth(0).uncheck();
+  await boxes.nth(0).check();
+  const listed = await choice.locator('label').allInnerTexts();
+  const ticked = await boxes.evaluateAll((els) => els.map((e) => (e as HTMLInputElement).checked));
+  const cells = await page.locator('canvas[data-renderer]').evaluateAll((els) => els.map((e) => e.getAttribute('aria-label') ?? ''));
+  expect(cells.map((c) => c.replace(/^.*? through /, ''))).toEqual(listed.filter((_, i) => ticked[i]).map((t) => t.trim()));
   await shot(page, 'photos-05-compare');
 
-  // full-resolution render with progress, then the download
+  // full-resolution render with progress, then the download, named after the photo and the look
+  const renderMisses: string[] = [];
+  page.on('response', (r) => {
+    if (/\/renders\//.test(r.url()) && r.status() >= 400) renderMisses.push(`${r.status()} ${r.url()}`);
+  });
   await page.getByRole('button', { name: 'Look', exact: true }).click();
+  const cyan = 'Panchromatic + red-absorbing cyan';
+  // (away and back: the live changes made above start afresh, so the saved look is rendered)
+  await page.getByLabel('Look', { exact: true }).selectOption({ label: 'Panchromatic, no filter' });
+  await page.getByLabel('Look', { exact: true }).selectOption({ label: cyan });
+  await lutReady(page);
+  expect(await page.getByText('with the live changes, unsaved').count()).toBe(0);
   await page.getByRole('button', { name: 'Render full resolution' }).click();
   await page.getByRole('progressbar', { name: 'Render progress' }).waitFor();
   const link = page.getByRole('link', { name: /Download 16-bit PNG/ });
   await link.waitFor({ timeout: 60_000 });
+  expect(await page.getByTestId('render-status').getAttribute('data-look')).toBe(cyan);
+  expect(await link.innerText()).toContain(`of “${cyan}”`);
   const href = await link.getAttribute('href');
-  const dl = await page.evaluate((u) => fetch(u!).then((r) => ({ status: r.status, type: r.headers.get('content-type') })), href);
-  expect(dl).toEqual({ status: 200, type: 'image/png' });
+  const dl = await page.evaluate((u) => fetch(u!).then((r) => ({ status: r.status, type: r.headers.get('content-type'), name: r.headers.get('content-disposition') })), href);
+  expect(dl).toMatchObject({ status: 200, type: 'image/png' });
+  expect(dl.name).toMatch(/filename="?lacquer-box-test_Panchromatic-red-absorbing-cyan_[0-9a-f]{8}\.png"?$/);
   await shot(page, 'photos-06-rendered');
+  // another look: the panel shows no render until one of that look is made (not the previous look's)
+  await page.getByLabel('Look', { exact: true }).selectOption({ label: 'Panchromatic, no filter' });
+  await page.getByRole('button', { name: 'Render full resolution' }).waitFor();
+  expect(await page.getByTestId('render-status').count()).toBe(0);
+  expect(await page.getByRole('link', { name: /Download/ }).count()).toBe(0);
+  // back to the cyan look: its render is shown again; the JPEG format is another render, so none
+  await page.getByLabel('Look', { exact: true }).selectOption({ label: cyan });
+  await link.waitFor();
+  await page.locator('#render-format').selectOption('jpeg');
+  expect(await page.getByTestId('render-status').count()).toBe(0);
+  await page.locator('#render-format').selectOption('png16');
+  await link.waitFor();
+  // another photo: no render shown, and no request for this photo's render key under it
+  await page.getByRole('button', { name: new RegExp(DEMO_SCENES[1].name.slice(0, 12)) }).first().click();
+  await page.waitForURL(/photo=\d+/);
+  await lutReady(page);
+  expect(await page.getByTestId('render-status').count()).toBe(0);
+  await shot(page, 'photos-06b-other-photo-no-render');
+  await page.getByRole('button', { name: /lacquer box test/ }).click();
+  await lutReady(page);
+  await link.waitFor();
+  expect(renderMisses).toEqual([]);
 
-  // sample the lacquer box (around 68 % across, 68 % down in this scene) and keep it as a swatch
-  const box = (await page.getByTestId('sampler').boundingBox())!;
+  // read the lacquer box (around 68 % across, 68 % down in this scene) and keep it as a swatch
+  await page.getByRole('heading', { name: 'Read a region' }).waitFor();
+  const box = (await page.getByTestId('region-reader').boundingBox())!;
   await page.mouse.move(box.x + box.width * 0.64, box.y + box.height * 0.66);
   await page.mouse.down();
   await page.mouse.move(box.x + box.width * 0.7, box.y + box.height * 0.7, { steps: 5 });
   await page.mouse.up();
-  await page.getByTestId('sample-reading').waitFor();
-  const zone = await page.getByTestId('sample-zone').textContent();
+  await page.getByTestId('region-reading').waitFor();
+  const zone = await page.getByTestId('region-zone').textContent();
   expect(zone).toMatch(/^(0|I|II|III|IV|V|VI|VII|VIII|IX|X)$/);
   await page.getByLabel('Swatch name').fill('Lacquer box, sampled');
   await page.getByRole('button', { name: 'Keep as swatch' }).click();

@@ -18,9 +18,15 @@ async function shot(p: Page, name: string) {
   return shotAt(p, name);
 }
 
+/** The makeup member on the Swatches page at a laptop's size. */
+async function swatchesAsMakeup() {
+  const session = await openSignedIn(env, 'makeup@demo.grisaille.test', { viewport: LAPTOP });
+  await session.page.goto(`${env.app.url}/p/${session.pid}/swatches`);
+  return session;
+}
+
 it('the makeup artist finds the shade of a lip colour for zone IV through the cyan look, keeps it, and sees it on the board', async () => {
-  const { page: p, errors, pid } = await openSignedIn(env, 'makeup@demo.grisaille.test', { viewport: LAPTOP });
-  await p.goto(`${env.app.url}/p/${pid}/swatches`);
+  const { page: p, errors } = await swatchesAsMakeup();
   await p.getByRole('heading', { name: 'Swatches', level: 1 }).waitFor();
 
   // the task, as a person does it: 6 clicks (swatch, look, zone, find, keep, board) and no typing
@@ -81,8 +87,7 @@ it('the makeup artist finds the shade of a lip colour for zone IV through the cy
 });
 
 it('a skin swatch from a preset: the flush slider moves its zone through each look live', async () => {
-  const { page: p, errors, pid } = await openSignedIn(env, 'makeup@demo.grisaille.test', { viewport: LAPTOP });
-  await p.goto(`${env.app.url}/p/${pid}/swatches`);
+  const { page: p, errors } = await swatchesAsMakeup();
   const form = p.getByRole('form', { name: 'Add a swatch' });
   await form.getByLabel('Name').fill('Test skin, flushed cheek');
   await form.getByText('Skin', { exact: true }).click();
@@ -114,8 +119,7 @@ it('a skin swatch from a preset: the flush slider moves its zone through each lo
 });
 
 it('duplicates a swatch and edits the copy (colour, light, notes), with the message of a bad value beside its field', async () => {
-  const { page: p, errors, pid } = await openSignedIn(env, 'makeup@demo.grisaille.test', { viewport: LAPTOP });
-  await p.goto(`${env.app.url}/p/${pid}/swatches`);
+  const { page: p, errors } = await swatchesAsMakeup();
   const list = p.getByRole('list', { name: 'Swatches' });
   // another department's swatch: a contributor may not edit it
   await list.getByRole('button', { name: 'Burgundy silk', exact: true }).click();

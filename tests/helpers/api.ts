@@ -1,4 +1,5 @@
 import fs from 'node:fs';
+import { afterAll, beforeAll } from 'vitest';
 import { copyRunUpsampleTable } from '../setup/upsample-table-file';
 import os from 'node:os';
 import path from 'node:path';
@@ -93,4 +94,19 @@ export async function withTestApp(opts: Parameters<typeof startTestApp>[0], fn: 
   } finally {
     await app.close();
   }
+}
+
+/**
+ * For a test file that only needs one signed-in user: starts the app with the demo before the file's tests
+ * and closes it after; `app()` and `agent()` are ready inside the tests.
+ */
+export function signedInForFile(email: string): { app: () => TestApp; agent: () => Agent } {
+  let t: TestApp | undefined;
+  let a: Agent | undefined;
+  beforeAll(async () => {
+    t = await startTestApp();
+    a = await t.agent(email);
+  });
+  afterAll(async () => t?.close());
+  return { app: () => t!, agent: () => a! };
 }

@@ -86,7 +86,9 @@ export function photosRouter(ctx: AppContext): Router {
     res.json({ render: await svc.renderStatus(pid(req), photoId(req), String(req.params.renderKey)) });
   }));
   productionRoute(r, ctx, 'get', '/photos/:photoId/renders/:renderKey/file', 'viewer', handle(async (req, res) => {
-    const f = await svc.renderFile(pid(req), photoId(req), String(req.params.renderKey));
+    const look = req.query.look;
+    if (look !== undefined && (typeof look !== 'string' || !/^[1-9]\d{0,9}$/.test(look))) throw new InvalidError('look: give the id of a saved look (a whole number).', 'look');
+    const f = await svc.renderFile(pid(req), photoId(req), String(req.params.renderKey), look === undefined ? undefined : Number(look));
     res.setHeader('Cache-Control', 'private, max-age=86400, immutable');
     res.attachment(f.downloadName).type(f.type).sendFile(f.path);
   }));

@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import { findInProduction } from '../../db/in-production';
 import type { DataSource } from 'typeorm';
 import { Photo } from '../../db/entities/photo.entity';
+import { Look } from '../../db/entities/look.entity';
 import type { Membership } from '../../db/entities/membership.entity';
 import { NotFoundError } from '../../errors';
 import { assertDepartmentAccess } from '../../policy/department-access';
@@ -9,7 +10,7 @@ import type { LookDefinition } from '../../../shared/schemas/look';
 import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, type PhotoLookView, type PhotoView, type RenderFormat, type RenderStatus, type UncertaintyStatus } from '../../../shared/schemas/photo';
 import { ingestPhoto } from './photo-ingest';
 import { PhotoStorage, removeQuietly } from './photo-storage';
-import { RenderJobs } from './render-jobs';
+import { RenderJobs, renderKey } from './render-jobs';
 import { UncertaintyJobs } from './uncertainty-jobs';
 import { getUpsampleTable } from '../../services/upsample-table';
 import { photoLookView, resolvePhotoLook } from './photo-looks';
@@ -164,8 +165,10 @@ export class PhotosService {
     return photoLookView(await resolvePhotoLook(this.ds.manager, productionId, choice, await getUpsampleTable(this.dataDir)));
   }
 
-  private withUrl(productionId: number, photoId: number, s: RenderStatus): RenderStatus {
-    return s.status === 'done' ? { ...s, url: `/api/productions/${productionId}/photos/${photoId}/renders/${s.key}/file` } : s;
+  /** Adds the file's route to a finished render; with `lookId` the file is named after that look. */
+  private withUrl(productionId: number, photoId: number, s: RenderStatus, lookId?: number): RenderStatus {
+    if (s.status !== 'done') return s;
+    return { ...s, url: `/api/productions/${productionId}/photos/${photoId}/renders/${s.key}/file${lookId ? `?look=${lookId}` : ''}` };
   }
 
   /** Starts (or finds) the uncertainty table of a look for the overlay. */
@@ -186,7 +189,7 @@ export class PhotosService {
   async startRender(productionId: number, photoId: number, req: { lookId?: number; look?: LookDefinition; format: RenderFormat }): Promise<RenderStatus> {
     const p = await this.entity(productionId, photoId);
     const look = await resolvePhotoLook(this.ds.manager, productionId, req, await getUpsampleTable(this.dataDir));
-    return this.withUrl(productionId, photoId, this.renders.request(p, look.composed, look.contentHash, req.format));
+    return this.withUrl(productionId, photoId, this.renders.request(p, look.composed, look.contentHash, req.format), req.lookId);
   }
 
   async renderStatus(productionId: number, photoId: number, key: string): Promise<RenderStatus> {
@@ -196,11 +199,41 @@ export class PhotosService {
     return this.withUrl(productionId, photoId, s);
   }
 
-  async renderFile(productionId: number, photoId: number, key: string): Promise<{ path: string; type: string; downloadName: string }> {
+  /**
+   * A finished render's file and the name it downloads under: `<photo>_<look>_<first 8 of the key>.png|jpg`.
+   * `lookId` (a saved look of this production) names the look; when the render is not of that look's saved
+   * content (the live changes were rendered) the name says "retuned". An unknown look leaves its name out.
+   */
+  async renderFile(productionId: number, photoId: number, key: string, lookId?: number): Promise<{ path: string; type: string; downloadName: string }> {
     const p = await this.entity(productionId, photoId);
     const f = /^[0-9a-f]{32}$/.test(key) ? this.renders.fileOf(p.storageKey, key) : null;
     if (!f) throw new NotFoundError('That render');
-    const safe = p.name.replace(/[^\p{L}\p{N} ._-]+/gu, '').trim().replace(/\s+/g, '-') || 'photo';
-    return { path: f.file, type: f.format === 'jpeg' ? 'image/jpeg' : 'image/png', downloadName: `${safe}-grey-${key.slice(0, 8)}.${f.format === 'jpeg' ? 'jpg' : 'png'}` };
+    let lookPart: string | null = null;
+    const look = lookId ? await this.ds.getRepository(Look).findOne({ where: { id: lookId, production: { id: productionId } } }) : null;
+    if (look) {
+      const resolved = await resolvePhotoLook(this.ds.manager, productionId, { lookId: look.id }, await getUpsampleTable(this.dataDir));
+      lookPart = renderKey(p.storageKey, resolved.contentHash, f.format) === key ? look.name : `${look.name} retuned`;
+    }
+    const ext = f.format === 'jpeg' ? 'jpg' : 'png';
+    const parts = [fileNamePart(p.name, 'photo'), ...(lookPart ? [fileNamePart(lookPart, 'look')] : ['grey']), key.slice(0, 8)];
+    return { path: f.file, type: f.format === 'jpeg' ? 'image/jpeg' : 'image/png', downloadName: `${parts.join('_')}.${ext}` };
   }
+}
+
+/**
+ * One part of a download's file name from a user's name for something: letters (any script, NFC), digits,
+ * spaces as hyphens, `.`, `-`; no path separators, quotes, control characters or leading dots; at most 80
+ * characters. The header carries it as RFC 6266 `filename*` (UTF-8) with an ASCII `filename` fallback.
+ */
+export function fileNamePart(name: string, fallback: string): string {
+  const safe = name
+    .normalize('NFC')
+    .replace(/[^\p{L}\p{M}\p{N} .-]+|\.{2,}/gu, ' ')
+    .trim()
+    .replace(/\s+/g, '-')
+    .replace(/-{2,}/g, '-')
+    .replace(/^[.-]+|[.-]+$/g, '')
+    .slice(0, 80)
+    .replace(/[.-]+$/, '');
+  return safe || fallback;
 }

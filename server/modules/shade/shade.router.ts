@@ -1,9 +1,7 @@
 import { Router } from 'express';
 import type { AppContext } from '../../context';
-import { requireAuth } from '../../middleware/require-role';
-import { validate } from '../../middleware/validate';
 import { shadeRequestSchema, type ShadeRequest } from '../../../shared/schemas/shade';
-import { handle } from '../route-registry';
+import { computeRoute } from '../route-registry';
 import { runShade } from './shade.service';
 
 /**
@@ -12,13 +10,6 @@ import { runShade } from './shade.service';
  */
 export function shadeRouter(ctx: AppContext): Router {
   const r = Router();
-  r.post(
-    '/shade',
-    requireAuth,
-    validate(shadeRequestSchema),
-    handle(async (req, res) => {
-      res.json(await runShade(ctx.env.dataDir, req.body as ShadeRequest));
-    }),
-  );
+  computeRoute<ShadeRequest>(r, '/shade', shadeRequestSchema, (body) => runShade(ctx.env.dataDir, body));
   return r;
 }

@@ -1,39 +1,23 @@
 /**
- * The exposure sheet as a PDF (pdfkit): A4 portrait with margins that also print on US Letter, Inter
- * from @fontsource/inter (WOFF, read by pdfkit's fontkit) with tabular figures, units on every number.
- * Inter's latin subset lacks ⅓ ⅔ and →, so stops are written "1 2/3" and arrows are drawn.
- * Falls back to Helvetica when the font files cannot be found.
+ * One look's exposure sheet drawn into a pdfkit document (sheets-pdf.ts makes the document): A4 portrait,
+ * tabular figures, units on every number. Inter's latin subset lacks ⅓ ⅔ and →, so stops are written
+ * "1 2/3" and arrows are drawn. The swatch table lists every swatch over as many pages as it takes, its
+ * header repeated on each, with the thresholds drawn across it.
  */
-import fs from 'node:fs';
-import path from 'node:path';
-import { createRequire } from 'node:module';
-import PDFDocument from 'pdfkit';
-import type { ExposureSheet } from '../../../shared/schemas/sheet';
+import { C, PAGE, type Faces } from './sheet-pdf-style';
+import { drawSheetLightBudget } from './sheet-pdf-light-budget';
+import { NEAR_THRESHOLD_STOPS, SHEET_FLAG_WORDS, type ExposureSheet, type SheetFlag } from '../../../shared/schemas/sheet';
 import { ZONE_NUMERALS } from '../../../shared/tone/zones';
 import { asciiFractions, formatEI, formatFactor, formatFootcandles, formatLux, formatSeconds, formatStopsLabel, formatTStop } from '../../../shared/tone/exposure-format';
 
-const C = { ink: '#1b1a18', soft: '#4a4742', mute: '#77736b', line: '#d9d5ca', sunk: '#ebe8e0', accent: '#1d5c7a', warn: '#c2410c', warnSoft: '#fbe3d6' };
-const PAGE = { size: 'A4' as const, margin: 42 };
 /** The app's zone ramp (tailwind.config.ts): zone 0..X at CIE L* 0, 10 … 100. */
 const ZONE_GREYS = ['#000000', '#1b1b1b', '#303030', '#474747', '#5e5e5e', '#777777', '#919191', '#ababab', '#c6c6c6', '#e2e2e2', '#ffffff'];
 
-/** Inter's WOFF files from @fontsource/inter, or null when they are not installed. */
 /** A plausible range as zones, e.g. "III–V" (one numeral when it stays within one zone). */
 function rangeWords(r: [number, number]): string {
   const lo = ZONE_NUMERALS[Math.round(Math.min(10, Math.max(0, 5 + r[0])))];
   const hi = ZONE_NUMERALS[Math.round(Math.min(10, Math.max(0, 5 + r[1])))];
   return lo === hi ? lo : `${lo}–${hi}`;
-}
-
-function interFiles(): { regular: string; semibold: string } | null {
-  try {
-    const dir = path.join(path.dirname(createRequire(import.meta.url).resolve('@fontsource/inter/package.json')), 'files');
-    const regular = path.join(dir, 'inter-latin-400-normal.woff');
-    const semibold = path.join(dir, 'inter-latin-600-normal.woff');
-    return fs.existsSync(regular) && fs.existsSync(semibold) ? { regular, semibold } : null;
-  } catch {
-    return null;
-  }
 }
 
 /** One decimal with a sign; −0.0 shows as 0.0. */
@@ -43,22 +27,11 @@ function signed1(v: number): string {
 }
 interface Cell { text: string; w: number; align?: 'left' | 'right' | 'center'; bold?: boolean; color?: string; size?: number; /** tabular figures (default: right-aligned cells) */ num?: boolean }
 
-/** Renders the sheet; resolves with the PDF bytes. */
-export function renderSheetPdf(sheet: ExposureSheet): Promise<Buffer> {
-  const doc = new PDFDocument({ size: PAGE.size, margin: PAGE.margin, bufferPages: true, info: { Title: `Exposure sheet: ${sheet.look.name}`, Subject: sheet.production.name, Creator: 'Grisaille' } });
-  const chunks: Buffer[] = [];
-  doc.on('data', (c: Buffer) => chunks.push(c));
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-  });
-  const fonts = interFiles();
-  const REG = fonts ? 'Inter' : 'Helvetica';
-  const BOLD = fonts ? 'Inter-SemiBold' : 'Helvetica-Bold';
-  if (fonts) {
-    doc.registerFont(REG, fonts.regular);
-    doc.registerFont(BOLD, fonts.semibold);
-  }
+/** Draws one look's sheet from the current page on, adding pages as it needs them. */
+export function drawSheet(doc: PDFKit.PDFDocument, sheet: ExposureSheet, faces: Faces): void {
+  const fonts = faces.inter;
+  const REG = faces.reg;
+  const BOLD = faces.bold;
   const L = PAGE.margin;
   const W = doc.page.width - 2 * PAGE.margin;
   const bottom = () => doc.page.height - PAGE.margin - 14;
@@ -197,6 +170,7 @@ export function renderSheetPdf(sheet: ExposureSheet): Promise<Buffer> {
     y += h;
   }
   y += 12;
+  y = drawSheetLightBudget(doc, sheet, faces, y);
 
   // ---------------------------------------------------------------- key and zones
   heading('Key and zones');
@@ -223,39 +197,60 @@ export function renderSheetPdf(sheet: ExposureSheet): Promise<Buffer> {
   }
   y += 14;
   if (sheet.swatches.length) {
+    const count = (f: SheetFlag) => sheet.swatches.filter((w) => w.flag === f).length;
+    const tally = (['lost', 'near-lost', 'blown', 'near-blown'] as const).filter((f) => count(f)).map((f) => `${count(f)} ${SHEET_FLAG_WORDS[f]}`);
+    font(true, 8.5).text(t(`${sheet.swatches.length} swatch${sheet.swatches.length === 1 ? '' : 'es'}, every one on the boards${tally.length ? `: ${tally.join(', ')}` : ''}.`), L, y, opts({ width: W }));
+    y = doc.y + 4;
     const cols: Cell[] = [
-      { text: 'Colour · grey', w: 56 }, { text: 'Swatch', w: W - 56 - 100 - 54 - 46 - 46 - 62 - 62 }, { text: 'Board', w: 100 }, { text: 'Zone', w: 54, align: 'right' },
-      { text: 'Stops', w: 46, align: 'right' }, { text: 'Could read', w: 62, align: 'right' }, { text: 'Shift', w: 46, align: 'right' }, { text: 'Note', w: 62 },
+      { text: 'Colour · grey', w: 56 }, { text: 'Swatch', w: W - 56 - 78 - 52 - 40 - 56 - 38 - 100 }, { text: 'Board', w: 78 }, { text: 'Zone', w: 52, align: 'right' },
+      { text: 'Stops', w: 40, align: 'right' }, { text: 'Could read', w: 56, align: 'right' }, { text: 'Shift', w: 38, align: 'right' }, { text: 'Note', w: 100 },
     ];
     const header = () => headRow(cols);
+    /** a rule across the table where a threshold falls between two rows */
+    const divider = (text: string) => {
+      if (y + 30 > bottom()) {
+        doc.addPage();
+        y = PAGE.margin;
+        header();
+      }
+      doc.moveTo(L, y + 1).lineTo(L + W, y + 1).lineWidth(1.2).strokeColor(C.warn).stroke();
+      font(true, 7.5, C.warn).text(t(text), L + 3, y + 4, opts({ width: W - 6 }));
+      y = doc.y + 3;
+    };
     header();
-    for (const s of sheet.swatches) {
+    const rows = sheet.swatches;
+    const lastBlown = rows.findLastIndex((w) => !w.key && w.blown);
+    const firstLost = rows.findIndex((w) => !w.key && w.lost);
+    rows.forEach((s, i) => {
+      if (i === firstLost) divider(`Shadow-detail threshold: ${th.shadowDetailStops.toFixed(1)} stops under the key. Texture is lost below this line.`);
       if (y + 16 > bottom()) {
         doc.addPage();
         y = PAGE.margin;
         header();
       }
       const y0 = y;
+      const wide = s.range.plausible[1] - s.range.plausible[0] >= 1;
       row(([
         { ...cols[0], text: '' },
         { ...cols[1], text: s.key ? `${s.name} (key)` : s.name, bold: s.key },
         { ...cols[2], text: s.board, color: C.soft },
         { ...cols[3], text: `${s.numeral} (${s.zone.toFixed(1)})` },
         { ...cols[4], text: signed1(s.stops) },
-        { ...cols[5], text: rangeWords(s.range.plausible), color: s.range.plausible[1] - s.range.plausible[0] >= 1 ? C.warn : C.soft },
+        { ...cols[5], text: rangeWords(s.range.plausible), color: wide ? C.warn : C.soft },
         { ...cols[6], text: signed1(s.shift), color: Math.abs(s.shift) >= 1 ? C.warn : C.ink },
-        { ...cols[7], text: s.lost ? 'texture lost' : s.blown ? 'blown' : s.range.plausible[1] - s.range.plausible[0] >= 1 ? 'measure it' : '', color: C.warn },
-      ] as Cell[]).map((c) => ({ ...c, size: 8.5 })), L, 2.5);
+        { ...cols[7], text: [s.flag ? SHEET_FLAG_WORDS[s.flag] : '', wide ? 'measure it' : ''].filter(Boolean).join('; '), color: C.warn, bold: s.flag === 'lost' || s.flag === 'blown' },
+      ] as Cell[]).map((c) => ({ ...c, size: 8.5 })), L, 2.5, s.lost || s.blown ? C.warnSoft : undefined);
       const hh = y - y0 - 4;
       doc.rect(L + 3, y0 + 2, 24, hh).fill(s.hex);
       const g = Math.max(0, Math.min(255, s.grey)).toString(16).padStart(2, '0');
       doc.rect(L + 27, y0 + 2, 24, hh).fill(`#${g}${g}${g}`);
       doc.rect(L + 3, y0 + 2, 48, hh).lineWidth(0.4).strokeColor(C.line).stroke();
-    }
-    font(false, 7.5, C.mute).text(t(`Stops from middle grey on the medium with the key placed; shift = medium minus eye (+ reads lighter than it looks). "Could read": the zones a colour given only as a value could land on through this look with a realistic spectrum (bar on the ruler; the faint line is every possible spectrum); measure the swatch to be sure.${sheet.swatchesLeftOff ? ` ${sheet.swatchesLeftOff} more swatches are on the boards.` : ''}`), L, y + 3, opts({ width: W }));
+      if (i === lastBlown) divider(`Highlight roll-off: ${th.highlightRollOffStops.toFixed(1)} stops over the key. Highlights blow above this line.`);
+    });
+    font(false, 7.5, C.mute).text(t(`Stops from middle grey on the medium with the key placed; shift = medium minus eye (+ reads lighter than it looks). "Could read": the zones a colour given only as a value could land on through this look with a realistic spectrum (bar on the ruler; the faint line is every possible spectrum); measure the swatch to be sure. "Near": within ${NEAR_THRESHOLD_STOPS} stop of a threshold, or could cross it.`), L, y + 3, opts({ width: W }));
     y = doc.y + 10;
   } else {
-    font(false, 8.5, C.mute).text('No board shows this look yet: add it to a board to list its swatches here.', L, y, opts({ width: W }));
+    font(false, 8.5, C.mute).text(sheet.boardsPicked ? 'The boards picked hold no swatches.' : 'No board shows this look yet: pick boards on the sheet page, or add the look to a board, to list its swatches here.', L, y, opts({ width: W }));
     y = doc.y + 10;
   }
 
@@ -278,16 +273,4 @@ export function renderSheetPdf(sheet: ExposureSheet): Promise<Buffer> {
     cy += c.h;
   }
   y += boxH;
-
-  // ---------------------------------------------------------------- footers
-  const range = doc.bufferedPageRange();
-  for (let i = range.start; i < range.start + range.count; i++) {
-    doc.switchToPage(i);
-    doc.page.margins.bottom = 0; // the footer sits in the margin; without this pdfkit would start a new page
-    const fy = doc.page.height - PAGE.margin - 8;
-    font(false, 7, C.mute).text(t(`${sheet.production.name} · ${sheet.look.name} · model values: confirm with a meter and camera tests.`), L, fy, opts({ width: W - 60, lineBreak: false }));
-    font(false, 7, C.mute).text(`Page ${i + 1} of ${range.count}`, L + W - 60, fy, opts({ width: 60, align: 'right', lineBreak: false }));
-  }
-  doc.end();
-  return done;
 }

@@ -2,14 +2,16 @@
  * The exposure sheet of a look: everything the camera crew and the gaffer take to set, worked out by the
  * engine (shared/spectral via the looks module) and the tone model (shared/tone). Composition only.
  */
+import { LooksService } from '../looks/looks.service';
 import { findInProduction } from '../../db/in-production';
-import type { DataSource } from 'typeorm';
+import { In, type DataSource } from 'typeorm';
 import { Look } from '../../db/entities/look.entity';
 import { Board } from '../../db/entities/board.entity';
 import { Swatch } from '../../db/entities/swatch.entity';
 import { Production } from '../../db/entities/production.entity';
 import { toneSettingsSchema, type EiChainStepAnswer, type ToneSettings } from '../../../shared/schemas/exposure';
-import { SHEET_CAUTIONS, type ExposureSheet, type SheetFactor, type SheetSwatch } from '../../../shared/schemas/sheet';
+import { NEAR_THRESHOLD_STOPS, SHEET_CAUTIONS, type ExposureSheet, type SheetFactor, type SheetFlag, type SheetSwatch } from '../../../shared/schemas/sheet';
+import { InvalidError } from '../../errors';
 import { eiChain, formatStops } from '../../../shared/tone/ei-chain';
 import { COMMON_T_STOPS, exposurePlan, lightLevelTable } from '../../../shared/tone/exposure-plan';
 import { DEFAULT_INCIDENT_C, DEFAULT_INCIDENT_C_NOTE } from '../../../shared/tone/light-level';
@@ -20,9 +22,6 @@ import { getUpsampleTable } from '../../services/upsample-table';
 import { analyseLook } from '../looks/look-analysis';
 import { lookDefinition, prepareToneLooks, toneSwatches } from '../tones/tone.service';
 import { lookTones, type ToneLook } from '../tones/board-tones';
-
-/** At most this many swatches on a sheet (the rest are counted, not listed). */
-export const SHEET_MAX_SWATCHES = 30;
 
 const STEP_LABELS: Record<EiChainStepAnswer['step'], string> = { box: 'Box speed', rating: 'Development / rating', filter: 'Filter factor' };
 
@@ -47,11 +46,41 @@ function printWords(p: TonePipeline, t: ToneSettings): string {
   return `print, contrast grade ${t.printGrade}, ${exp}`;
 }
 
+/**
+ * What to watch on a swatch, from its tone against the thresholds in force (stops from zone V, key placed):
+ * lost/blown as the tone model flags them; "near" within NEAR_THRESHOLD_STOPS of a threshold or when the
+ * plausible range of a colour-only swatch reaches over it.
+ */
+export function sheetFlag(t: { stops: number; lost: boolean; blown: boolean; range: { plausible: readonly [number, number] } }, shadowDetailStops: number, highlightRollOffStops: number): SheetFlag | null {
+  if (t.lost) return 'lost';
+  if (t.blown) return 'blown';
+  if (t.stops < -shadowDetailStops + NEAR_THRESHOLD_STOPS || t.range.plausible[0] < -shadowDetailStops) return 'near-lost';
+  if (t.stops > highlightRollOffStops - NEAR_THRESHOLD_STOPS || t.range.plausible[1] > highlightRollOffStops) return 'near-blown';
+  return null;
+}
+
 export class SheetsService {
   constructor(private ds: DataSource, private dataDir: string) {}
 
-  /** The sheet of look `lookId` of production `productionId`; NotFoundError when the look is not in it. */
-  async sheet(productionId: number, lookId: number): Promise<ExposureSheet> {
+  /**
+   * The sheets of several looks, in the order given, for one PDF of the day; InvalidError naming `looks`
+   * when any of them is not a look of this production.
+   */
+  async daySheets(productionId: number, lookIds: readonly number[]): Promise<ExposureSheet[]> {
+    const found = await this.ds.manager.find(Look, { where: { production: { id: productionId }, id: In([...lookIds]) }, select: { id: true } });
+    const missing = lookIds.filter((id) => !found.some((l) => l.id === id));
+    if (missing.length) throw new InvalidError(`looks: ${missing.length > 1 ? `looks ${missing.join(', ')} are` : `look ${missing[0]} is`} not in this production.`, 'looks');
+    const out: ExposureSheet[] = [];
+    for (const id of lookIds) out.push(await this.sheet(productionId, id));
+    return out;
+  }
+
+  /**
+   * The sheet of look `lookId` of production `productionId`; NotFoundError when the look is not in it.
+   * `boardIds` picks the boards whose swatches it lists (InvalidError naming `boards` when one is not in the
+   * production); without it, every board that shows the look.
+   */
+  async sheet(productionId: number, lookId: number, boardIds?: readonly number[]): Promise<ExposureSheet> {
     const em = this.ds.manager;
     const look = await findInProduction(em, Look, productionId, lookId, 'Look');
     const production = await em.findOneByOrFail(Production, { id: productionId });
@@ -99,7 +128,7 @@ export class SheetsService {
       cost = plan.cost;
     }
 
-    const { swatches, left, boards } = await this.keySwatches(productionId, look, tone, toneLook);
+    const { swatches, boards, boardChoices } = await this.keySwatches(productionId, look, tone, toneLook, boardIds);
     const keySwatch = tone.keySwatchId !== null ? await em.findOne(Swatch, { where: { id: tone.keySwatchId, production: { id: productionId } } }) : null;
     return {
       production: { id: production.id, name: production.name },
@@ -130,28 +159,41 @@ export class SheetsService {
       },
       thresholds: { shadowDetailStops: pipeline.shadowDetailStops, highlightRollOffStops: pipeline.highlightRollOffStops },
       swatches,
-      swatchesLeftOff: left,
       boards,
+      boardChoices,
+      boardsPicked: boardIds !== undefined,
       notes: look.notes,
       cautions: SHEET_CAUTIONS,
+      lightBudget: await new LooksService(this.ds, this.dataDir).sheetLightBudget(productionId, lookId).catch(() => null),
       generatedAt: new Date().toISOString(),
     };
   }
 
-  /** Swatches of the boards that show this look (plus its key swatch): key first, then lightest to darkest. */
-  private async keySwatches(productionId: number, look: Look, tone: ToneSettings, toneLook: ToneLook): Promise<{ swatches: SheetSwatch[]; left: number; boards: string[] }> {
+  /**
+   * Every swatch of the boards on the sheet (those picked, else those that show this look) plus its key
+   * swatch: key first, then lightest to darkest, the darkest flagged rather than left off.
+   */
+  private async keySwatches(productionId: number, look: Look, tone: ToneSettings, toneLook: ToneLook, boardIds?: readonly number[]): Promise<Pick<ExposureSheet, 'swatches' | 'boards' | 'boardChoices'>> {
     const em = this.ds.manager;
     const all = await em.find(Board, { where: { production: { id: productionId } }, relations: { swatches: true }, order: { department: 'ASC', name: 'ASC', id: 'ASC' } });
-    const using = all.filter((b) => b.lookIds.includes(look.id));
+    if (boardIds) {
+      const missing = boardIds.filter((id) => !all.some((b) => b.id === id));
+      if (missing.length) throw new InvalidError(`boards: ${missing.length > 1 ? `boards ${missing.join(', ')} are` : `board ${missing[0]} is`} not in this production.`, 'boards');
+    }
+    const onSheet = (b: Board) => (boardIds ? boardIds.includes(b.id) : b.lookIds.includes(look.id));
+    const using = all.filter(onSheet);
+    const boardChoices = all.map((b) => ({ id: b.id, name: b.name, department: b.department, swatchCount: b.swatches.length, showsLook: b.lookIds.includes(look.id), onSheet: onSheet(b) }));
+    const boards = using.map((b) => b.name);
     const rows = new Map<number, { swatch: Swatch; board: string }>();
     for (const b of using) for (const s of b.swatches) if (!rows.has(s.id)) rows.set(s.id, { swatch: s, board: b.name });
     if (tone.keySwatchId !== null && !rows.has(tone.keySwatchId)) {
       const k = await em.findOne(Swatch, { where: { id: tone.keySwatchId, production: { id: productionId } } });
       if (k) rows.set(k.id, { swatch: k, board: '(key)' });
     }
-    if (!rows.size) return { swatches: [], left: 0, boards: using.map((b) => b.name) };
+    if (!rows.size) return { swatches: [], boards, boardChoices };
     const table = await getUpsampleTable(this.dataDir);
     const list = [...rows.values()];
+    const { shadowDetailStops, highlightRollOffStops } = toneLook.composed.pipeline;
     const tones = lookTones(toneLook, toneSwatches(list.map((r) => r.swatch), table), 0, Infinity).tones;
     const out: SheetSwatch[] = tones.map((t, i) => ({
       swatchId: t.swatchId,
@@ -166,9 +208,10 @@ export class SheetsService {
       lost: t.lost,
       blown: t.blown,
       key: t.swatchId === tone.keySwatchId,
+      flag: sheetFlag(t, shadowDetailStops, highlightRollOffStops),
       range: t.range,
     }));
     out.sort((a, b) => Number(b.key) - Number(a.key) || b.stops - a.stops);
-    return { swatches: out.slice(0, SHEET_MAX_SWATCHES), left: Math.max(0, out.length - SHEET_MAX_SWATCHES), boards: using.map((b) => b.name) };
+    return { swatches: out, boards, boardChoices };
   }
 }

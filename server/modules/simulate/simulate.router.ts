@@ -1,10 +1,9 @@
 import { Router } from 'express';
 import type { AppContext } from '../../context';
 import { requireAuth } from '../../middleware/require-role';
-import { validate } from '../../middleware/validate';
 import { simulateRequestSchema, type SimulateRequest } from '../../../shared/schemas/simulate';
 import { UPSAMPLE_METHOD } from '../../../shared/spectral/upsample-table';
-import { handle } from '../route-registry';
+import { computeRoute, handle } from '../route-registry';
 import { libraryListing, runSimulation, upsampleTableGzip } from './simulate.service';
 
 /**
@@ -15,14 +14,7 @@ import { libraryListing, runSimulation, upsampleTableGzip } from './simulate.ser
  */
 export function simulateRouter(ctx: AppContext): Router {
   const r = Router();
-  r.post(
-    '/simulate',
-    requireAuth,
-    validate(simulateRequestSchema),
-    handle(async (req, res) => {
-      res.json(await runSimulation(ctx.env.dataDir, req.body as SimulateRequest));
-    }),
-  );
+  computeRoute<SimulateRequest>(r, '/simulate', simulateRequestSchema, (body) => runSimulation(ctx.env.dataDir, body));
   r.get('/library', requireAuth, (_req, res) => {
     res.set('Cache-Control', 'private, max-age=3600');
     res.json(libraryListing());

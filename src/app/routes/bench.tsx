@@ -19,10 +19,11 @@ import { SpectraChart } from '../../features/bench/components/spectra-chart';
 import { FactorPanel } from '../../features/bench/components/factor-panel';
 import { BenchBoard, useBenchBoardChoice } from '../../features/bench/components/bench-board';
 import { LookMetaCard } from '../../features/bench/components/look-meta-card';
+import { MonitorTableDownload } from '../../features/bench/components/monitor-table-download';
 import { BenchExposure } from '../../features/exposure/components/bench-exposure';
 import { lookOptions } from '../../features/bench/lib/look-options';
 import { useLookDraft } from '../../features/bench/hooks/use-look-draft';
-import { useDebounced } from '../../features/bench/hooks/use-debounced';
+import { useDebounced } from '../../lib/use-debounced';
 import { roleAtLeast } from '../../../shared/policy/department';
 import { paths } from '../../lib/paths';
 
@@ -85,13 +86,15 @@ export default function BenchPage() {
               {looks.data?.looks.map((l) => <option key={l.id} value={l.id}>{l.name}</option>)}
               {canEdit && <option value="new">New look…</option>}
             </select>
+            {saved && <MonitorTableDownload pid={pid} lookId={saved.id} dirty={dirty} />}
             {saved && <Link to={to.sheet(saved.id)} className="rounded-md px-3 py-1.5 text-sm text-ink-soft hover:bg-paper-sunk">Exposure sheet</Link>}
             <Link to={to.looks()} className="rounded-md px-3 py-1.5 text-sm text-ink-soft hover:bg-paper-sunk">All looks</Link>
           </>
         }
       />
       {!canEdit && <div className="mb-4"><Notice>You can try changes here; saving looks needs the editor role.</Notice></div>}
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,7fr)]">
+      {/* side by side from laptop widths: the light path on the left, the factor and the board's tones beside it, then the exposure and the spectra */}
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,7fr)] xl:grid-cols-[minmax(0,4fr)_minmax(0,7fr)]">
         <div>
           <LookMetaCard name={name} notes={notes} onName={setName} onNotes={setNotes} canEdit={canEdit} savedName={saved?.name ?? null} dirty={dirty} notice={notice}
             saving={{ save: create.isPending || update.isPending, create: create.isPending }} onSave={save}
@@ -104,16 +107,16 @@ export default function BenchPage() {
         <div className="grid content-start gap-4">
           <ErrorMessage error={analysis.error} />
           {analysis.isPending && !analysis.data && <Spinner label="Computing…" />}
+          {analysis.data && <Card><FactorPanel analysis={analysis.data.analysis} stale={stale} /></Card>}
+          <Card>
+            <BenchBoard boards={boards.data?.boards ?? []} boardId={boardId} onBoard={setBoardId} chips={analysis.data?.board} stale={stale} boardLink={boardId ? to.board(boardId) : null} />
+          </Card>
           {analysis.data && (
             <>
-              <Card><FactorPanel analysis={analysis.data.analysis} stale={stale} /></Card>
               <Card><BenchExposure look={draft} analysis={analysis.data.analysis} board={analysis.data.board} onLookChange={setDraft} stale={stale} /></Card>
               <Card className={stale ? 'opacity-80' : ''}><SpectraChart analysis={analysis.data.analysis} /></Card>
             </>
           )}
-          <Card>
-            <BenchBoard boards={boards.data?.boards ?? []} boardId={boardId} onBoard={setBoardId} chips={analysis.data?.board} stale={stale} boardLink={boardId ? to.board(boardId) : null} />
-          </Card>
         </div>
       </div>
     </>

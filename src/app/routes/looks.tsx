@@ -8,8 +8,9 @@ import { useLooks } from '../../features/looks/api/get-looks';
 import { useLookAnalyses } from '../../features/looks/api/get-look-analysis';
 import { useDuplicateLook } from '../../features/looks/api/duplicate-look';
 import { FactorLine, LookPathLine } from '../../features/looks/components/look-summary';
+import { LightBudgetPanel } from '../../features/looks/components/light-budget-panel';
 import { roleAtLeast } from '../../../shared/policy/department';
-import { MAX_COMPARE_LOOKS } from '../../../shared/schemas/look';
+import { MAX_COMPARE_LOOKS, MAX_LIGHT_BUDGET_LOOKS } from '../../../shared/schemas/look';
 import { paths } from '../../lib/paths';
 
 export default function LooksPage() {
@@ -40,6 +41,7 @@ export default function LooksPage() {
       {looks.isPending && <Spinner />}
       <ErrorMessage error={looks.error ?? duplicate.error} />
       {looks.data?.looks.length === 0 && <p className="text-ink-mute">No looks yet.{canEdit && ' Start one on the bench.'}</p>}
+      {ids.length > 1 && <LightBudgetPanel pid={pid} lookIds={ids.slice(0, MAX_LIGHT_BUDGET_LOOKS)} />}
       <div className="grid gap-4 md:grid-cols-2">
         {looks.data?.looks.map((l, i) => {
           const a = analyses[i]?.data?.analysis;

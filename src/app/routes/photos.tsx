@@ -15,7 +15,7 @@ import { PhotoPreview, type PhotoViewMode } from '../../features/photos/componen
 import { PhotoDetails, photoFormatLine } from '../../features/photos/components/photo-details';
 import { TunePanel } from '../../features/photos/components/tune-panel';
 import { RenderPanel } from '../../features/photos/components/render-panel';
-import { SamplerPanel } from '../../features/photos/components/sampler-panel';
+import { RegionReadingPanel } from '../../features/photos/components/region-reading-panel';
 import { chooseRenderer } from '../../features/photos/lib/renderer';
 import { mayAddItems, mayChangeDepartmentItem, roleAtLeast } from '../../../shared/policy/department';
 import type { Department } from '../../../shared/schemas/roles';
@@ -87,8 +87,8 @@ export default function PhotosPage() {
           </Card>
           {photo && look && view === 'look' && (
             <Card>
-              <h2 className="mb-2 text-sm font-semibold">Sampler</h2>
-              <SamplerPanel reading={reading} lookName={look.name} photoName={photo.name} canKeep={canUpload}
+              <h2 className="mb-2 text-sm font-semibold">Read a region</h2>
+              <RegionReadingPanel reading={reading} lookName={look.name} photoName={photo.name} canKeep={canUpload}
                 canChooseDepartment={!!member && roleAtLeast(member.role, 'editor')} myDepartment={member?.department ?? 'camera'}
                 onKeep={keep} keeping={createSwatch.isPending} error={createSwatch.error} kept={session.kept} />
             </Card>

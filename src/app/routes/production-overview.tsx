@@ -14,7 +14,7 @@ const STARTS: { title: string; text: string; to: (p: ProductionPaths) => string 
   { title: 'Boards', text: "Each department's swatches as grey: zones, shifts, and the colours that merge.", to: (p) => p.boards() },
   { title: 'Swatches', text: 'Add a lip colour, a fabric or a paint by colour or measured file, and see its zone through every look.', to: (p) => p.swatches() },
   { title: 'Library', text: 'Built-in lights, filters and media, and your own curves from files, forms and gels.', to: (p) => p.library() },
-  { title: 'Photos', text: 'Reference photos through the looks: live preview while you retune, compare, wipe, zone map, sampler, full-resolution renders.', to: (p) => p.photos() },
+  { title: 'Photos', text: 'Reference photos through the looks: live preview while you retune, compare, wipe, zone map, reading a region, full-resolution renders.', to: (p) => p.photos() },
   // OVERVIEW LINKS END
   { title: 'Team', text: 'Members, roles, departments and invitations.', to: (p) => p.team() },
 ];

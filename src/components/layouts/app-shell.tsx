@@ -18,6 +18,7 @@ const PRODUCTION_NAV: { to: (p: ProductionPaths) => string; label: string; end?:
   { to: (p) => p.swatches(), label: 'Swatches' },
   { to: (p) => p.library(), label: 'Library' },
   { to: (p) => p.photos(), label: 'Photos' },
+  { to: (p) => p.lampPlan(), label: 'Lamp plan' },
   // NAV END
   { to: (p) => p.team(), label: 'Team' },
 ];

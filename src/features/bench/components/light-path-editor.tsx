@@ -104,7 +104,7 @@ export function LightPathEditor({ draft, onChange, options, curves, readOnly }: 
       </PathCard>
 
       <PathCard step="Surface" title="Each swatch of the board">
-        <p className="text-xs text-ink-mute">Reflectance, measured or estimated from its colour; choose a board below to see them through this look.</p>
+        <p className="text-xs text-ink-mute">Reflectance, measured or estimated from its colour; choose a board under “A board through this look” to see them through it.</p>
       </PathCard>
 
       {draft.filters.map((f, i) => {

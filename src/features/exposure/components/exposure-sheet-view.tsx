@@ -1,19 +1,16 @@
 import { useMemo } from 'react';
 import { CharacteristicCurveChart, type CurveSwatch } from './characteristic-curve-chart';
+import { SheetLightBudget } from './sheet-light-budget';
 import { formatEI, formatFactor, formatFootcandles, formatLux, formatSeconds, formatStopsLabel, formatTStop } from '../../../../shared/tone/exposure-format';
 import type { ExposureSheet, SheetSwatch } from '../../../../shared/schemas/sheet';
 import { ZONE_NUMERALS, zoneFromStops } from '../../../../shared/tone/zones';
 import { zoneFrac } from '../../../components/ui/range-bar';
-import { isExact, WIDE_WIDTH, widthOf, zoneSpanWords } from '../../../lib/tone-range';
+import { isExact, zoneSpanWords } from '../../../lib/tone-range';
+import { SheetSwatchTable } from './sheet-swatch-table';
 
 /** Inter's tabular figures also widen hyphens, so words in tables are set with normal figures. */
 const WORDS = '[font-variant-numeric:normal]';
 const NUM = 'px-1 text-right tabular-nums';
-
-const signed = (v: number) => {
-  const r = Number(v.toFixed(1));
-  return r === 0 ? '0.0' : `${r > 0 ? '+' : '−'}${Math.abs(r).toFixed(1)}`;
-};
 
 const pct = (f: number) => `${(f * 100).toFixed(2)}%`;
 const spanOf = (r: readonly [number, number]) => {
@@ -162,6 +159,7 @@ export function ExposureSheetView({ s }: { s: ExposureSheet }) {
           </p>
         )}
       </section>
+      <SheetLightBudget s={s} />
 
       <section className="mb-5">
         <H>Key and zones</H>
@@ -173,42 +171,10 @@ export function ExposureSheetView({ s }: { s: ExposureSheet }) {
         {s.swatches.length > 0 && <SheetZoneRuler swatches={s.swatches} />}
       </section>
 
-      {s.swatches.length > 0 ? (
-        <section className="mb-5">
-          <table className="sheet-swatches w-full text-sm">
-            <thead className={`text-left text-[10px] uppercase tracking-wide text-ink-mute ${WORDS}`}>
-              <tr><th>Colour · grey</th><th className="px-1">Swatch</th><th className="px-1">Board</th><th className="px-1 text-right">Zone</th><th className="px-1 text-right">Stops</th><th className="px-1">Could read</th><th className="px-1 text-right">Shift</th><th className="px-2">Note</th></tr>
-            </thead>
-            <tbody>
-              {s.swatches.map((w) => (
-                <tr key={w.swatchId} className="border-t border-paper-line">
-                  <td className="py-0.5">
-                    <span className="inline-flex overflow-hidden rounded-sm border border-paper-line">
-                      <span className="h-4 w-6" style={{ background: w.hex }} />
-                      <span className="h-4 w-6" style={{ background: `rgb(${w.grey},${w.grey},${w.grey})` }} />
-                    </span>
-                  </td>
-                  <td className={`px-1 ${WORDS} ${w.key ? 'font-semibold' : ''}`}>{w.name}{w.key ? ' (key)' : ''}</td>
-                  <td className={`px-1 text-ink-soft ${WORDS}`}>{w.board}</td>
-                  <td className={`${NUM} whitespace-nowrap`}>{w.numeral} ({w.zone.toFixed(1)})</td>
-                  <td className={NUM}>{signed(w.stops)}</td>
-                  <td className={`whitespace-nowrap px-1 tabular-nums ${isExact(w.range) ? 'text-ink-mute' : widthOf(w.range.plausible) >= WIDE_WIDTH ? 'font-semibold text-warn' : 'text-ink-soft'}`} title={isExact(w.range) ? 'measured spectrum: the tone is as computed' : `plausible range ${widthOf(w.range.plausible).toFixed(1)} st wide`} data-testid="sheet-could-read">
-                    {isExact(w.range) ? 'measured' : zoneSpanWords(w.range.plausible)}
-                  </td>
-                  <td className={`${NUM} ${Math.abs(w.shift) >= 1 ? 'text-warn' : ''}`}>{signed(w.shift)}</td>
-                  <td className="whitespace-nowrap px-2 text-warn">{w.lost ? 'texture lost' : w.blown ? 'blown' : widthOf(w.range.plausible) >= WIDE_WIDTH ? 'measure it' : ''}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-          <p className="mt-1 text-[11px] text-ink-mute">
-            Stops from middle grey on the medium with the key placed; shift = medium minus eye (+ reads lighter than it looks).
-            “Could read”: the zones a colour given only as a value could land on through this look with a realistic spectrum (the bar; the faint line is every possible spectrum); measure the swatch to be sure.
-            {s.swatchesLeftOff > 0 && ` ${s.swatchesLeftOff} more swatches are on the boards.`}
-          </p>
-        </section>
-      ) : (
-        <p className="mb-5 text-sm text-ink-mute">No board shows this look yet: add it to a board to list its swatches here.</p>
+      {s.swatches.length > 0 ? <SheetSwatchTable s={s} /> : (
+        <p className="mb-5 text-sm text-ink-mute" data-testid="sheet-no-swatches">
+          {s.boardsPicked ? 'The boards picked hold no swatches.' : 'No board shows this look yet: pick boards above, or add the look to a board, to list its swatches here.'}
+        </p>
       )}
 
       {s.notes.trim() && (

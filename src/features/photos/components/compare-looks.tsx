@@ -29,7 +29,7 @@ export function useCompareSelection(looks: LookView[]) {
   return [compare, setCompare] as const;
 }
 
-/** The same photo through several looks side by side, with the choice of looks. */
+/** The same photo through several looks side by side, with the choice of looks; the cells keep the looks' list order, whatever order they were ticked in. */
 export function CompareLooks({ pid, looks, compare, onCompare, loaded, mode, renderer }: {
   pid: number;
   looks: LookView[];
@@ -59,7 +59,7 @@ export function CompareLooks({ pid, looks, compare, onCompare, loaded, mode, ren
         })}
       </fieldset>
       <div className={`grid gap-3 ${compare.length > 1 ? 'sm:grid-cols-2' : ''}`}>
-        {compare.map((id) => looks.find((l) => l.id === id)).filter((l): l is LookView => !!l).map((l) => (
+        {looks.filter((l) => compare.includes(l.id)).map((l) => (
           <CompareCell key={l.id} pid={pid} look={l} loaded={loaded} mode={mode} renderer={renderer} />
         ))}
       </div>

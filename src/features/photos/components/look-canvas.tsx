@@ -38,7 +38,7 @@ function record(t: PreviewTiming) {
 /**
  * A photo through a look, live: WebGL2 when the browser has it, otherwise the worker (CPU). The live
  * canvas is 1600 px wide (narrower previews keep their width) and scaled to fit by CSS; comparisons
- * use a smaller frame. Children are laid over it (sampler rectangle, wipe line).
+ * use a smaller frame. Children are laid over it (the region being read, the wipe line).
  */
 export function LookCanvas({ loaded, size = 'live', timed, options, renderer, label, onTiming, children }: {
   loaded: LoadedPhoto;

@@ -1,6 +1,7 @@
 import { Button } from '../../../components/ui/button';
 import { ErrorMessage } from '../../../components/ui/alert';
 import type { PhotoView } from '../../../../shared/schemas/photo';
+import { uprightSize } from '../lib/photo-size';
 
 /** Where the photo came from, its original, and (for those who may) its deletion. */
 export function PhotoDetails({ photo, mayDelete, onDelete, error }: { photo: PhotoView; mayDelete: boolean; onDelete: () => void; error: unknown }) {
@@ -22,5 +23,6 @@ export function PhotoDetails({ photo, mayDelete, onDelete, error }: { photo: Pho
 
 /** One line on the photo's pixels and colour profile. */
 export function photoFormatLine(photo: PhotoView): string {
-  return `${photo.width} × ${photo.height} px, ${photo.bitDepth}-bit ${photo.format.toUpperCase()}${photo.iccProfile ? `, profile “${photo.iccProfile}” converted to sRGB` : ', sRGB'}.`;
+  const { width, height } = uprightSize(photo);
+  return `${width} × ${height} px, ${photo.bitDepth}-bit ${photo.format.toUpperCase()}${photo.iccProfile ? `, profile “${photo.iccProfile}” converted to sRGB` : ', sRGB'}.`;
 }

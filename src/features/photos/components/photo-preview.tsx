@@ -9,16 +9,17 @@ import type { PreviewMode } from '../lib/gl-preview';
 import type { Rect } from '../lib/region';
 import { CompareLooks, useCompareSelection } from './compare-looks';
 import { LookCanvas, type PreviewTiming, type Renderer } from './look-canvas';
-import { SamplerOverlay } from './sampler-overlay';
+import { RegionOverlay } from './region-overlay';
 import { WipeOverlay, WipeSlider } from './wipe';
 import { ZoneLegend } from './zone-legend';
 import { UncertaintyLayer } from './uncertainty-layer';
 import { UncertaintyLegend } from './uncertainty-legend';
 import { useUncertaintyTable } from '../hooks/use-uncertainty-table';
+import { uprightSize } from '../lib/photo-size';
 
 export type PhotoViewMode = 'look' | 'wipe' | 'compare';
 
-/** The photo through the look: alone (with the sampler), wiped against the colour original, or compared across looks. */
+/** The photo through the look: alone (with the region reading), wiped against the colour original, or compared across looks. */
 export function PhotoPreview({ pid, photo, look, looks, loaded, timed, error, loading, renderer, view, onView, rect, onRect, definition = null }: {
   pid: number;
   photo: PhotoView;
@@ -74,7 +75,7 @@ export function PhotoPreview({ pid, photo, look, looks, loaded, timed, error, lo
           onTiming={setTiming}
         >
           {overlay && uncertainty.table && <UncertaintyLayer image={loaded.live.image} table={uncertainty.table} wipe={view === 'wipe' ? wipe : null} onShaded={(r) => setShaded(r.shaded)} />}
-          {view === 'look' && <SamplerOverlay width={loaded.image.width} height={loaded.image.height} rect={rect} onRect={onRect} />}
+          {view === 'look' && <RegionOverlay width={loaded.image.width} height={loaded.image.height} rect={rect} onRect={onRect} />}
           {view === 'wipe' && <WipeOverlay wipe={wipe} onWipe={setWipe} lookName={look?.name} />}
         </LookCanvas>
       )}
@@ -84,7 +85,7 @@ export function PhotoPreview({ pid, photo, look, looks, loaded, timed, error, lo
       {overlay && <div className="mt-3 max-w-xl"><UncertaintyLegend status={uncertainty.status} pending={uncertainty.pending} lookName={look?.name ?? 'this look'} shaded={uncertainty.table ? shaded : null} error={uncertainty.error} /></div>}
       {timing && view !== 'compare' && (
         <p className="mt-2 text-xs text-ink-mute tabular" data-testid="preview-timing">
-          Preview {timing.width} × {timing.height} px, {renderer === 'gl' ? 'WebGL2' : 'worker (no WebGL2)'}: {Math.round(timing.total)} ms from the change (table {Math.round(timing.table)} ms).
+          Preview {timing.width} × {timing.height} px of a {uprightSize(photo).width} × {uprightSize(photo).height} px photo, {renderer === 'gl' ? 'WebGL2' : 'worker (no WebGL2)'}: {Math.round(timing.total)} ms from the change (table {Math.round(timing.table)} ms).
         </p>
       )}
     </>

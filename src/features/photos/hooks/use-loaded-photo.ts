@@ -15,11 +15,11 @@ export interface PhotoFrame {
   image: ImageData;
 }
 
-/** A photo's preview, decoded once: full size for the sampler, and scaled frames for the canvases. */
+/** A photo's preview, decoded once: full size for reading regions, and scaled frames for the canvases. */
 export interface LoadedPhoto {
   key: string;
   photo: PhotoView;
-  /** the stored preview's own pixels (the sampler reads these) */
+  /** the stored preview's own pixels (a region reading reads these) */
   image: ImageData;
   live: PhotoFrame;
   small: PhotoFrame;

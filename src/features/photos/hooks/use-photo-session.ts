@@ -3,8 +3,9 @@ import type { LookView } from '../../../../shared/schemas/look';
 import type { PhotoView } from '../../../../shared/schemas/photo';
 import { usePhotoLook } from '../api/get-photo-look';
 import { editedDefinition, hasEdits, type LookEdits } from '../lib/look-edits';
-import { sampleReading, type Rect } from '../lib/region';
+import { readRegion, type Rect } from '../lib/region';
 import { useLoadedPhoto } from './use-loaded-photo';
+import { uprightSize } from '../lib/photo-size';
 import { usePreviewLut } from './use-preview-lut';
 
 /**
@@ -26,7 +27,7 @@ export function usePhotoSession(pid: number, photo: PhotoView | undefined, look:
   const { loaded, error: loadError } = useLoadedPhoto(photo);
   const { timed, error: lutError } = usePreviewLut(photoLook.data?.look, edits.e, edits.at);
   const reading = useMemo(
-    () => (rect && loaded && timed && photo ? sampleReading(loaded.image, rect, timed.lut, photo) : null),
+    () => (rect && loaded && timed && photo ? readRegion(loaded.image, rect, timed.lut, uprightSize(photo)) : null),
     [rect, loaded, timed, photo],
   );
   const definition = look && photoLook.data && hasEdits(edits.e) ? editedDefinition(look, photoLook.data.look, edits.e) : null;

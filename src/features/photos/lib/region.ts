@@ -1,5 +1,5 @@
 /**
- * A sampled region of the preview: its mean colour, averaged in linear light (IEC 61966-2-1), and
+ * Reading a region of the preview: its mean colour, averaged in linear light (IEC 61966-2-1), and
  * where that colour lands through a look (the preview's table, shared/photo).
  */
 import { srgbDecode, srgbEncode } from '../../../../shared/tone/print';
@@ -7,8 +7,8 @@ import { sampleExposureLut } from '../../../../shared/photo/exposure-lut';
 import { greyOfStops, zoneOfStops } from '../../../../shared/look/tone-curve-table';
 import type { PreviewLut } from './preview-protocol';
 
-/** The sampled region's mean colour and where it lands through the look. */
-export interface SampleReading {
+/** A region's mean colour and where it lands through the look. */
+export interface RegionReading {
   /** mean colour, sRGB-encoded 0..1 */
   colour: [number, number, number];
   stops: number;
@@ -61,10 +61,10 @@ export function toneOfColour(lut: PreviewLut, c: readonly number[]): { stops: nu
  * The reading of a rectangle of the preview `img` (its own pixels): mean colour, tone through `lut`, and the
  * rectangle scaled to the original's pixels (`original` width × height; at least 1 px each way).
  */
-export function sampleReading(img: ImageData, r: Rect, lut: PreviewLut, original: { width: number; height: number }): SampleReading {
+export function readRegion(img: ImageData, r: Rect, lut: PreviewLut, original: { width: number; height: number }): RegionReading {
   const colour = meanColour(img, r);
   const sx = original.width / img.width;
   const sy = original.height / img.height;
-  const rect: SampleReading['rect'] = [Math.round(r.x * sx), Math.round(r.y * sy), Math.max(1, Math.round(r.width * sx)), Math.max(1, Math.round(r.height * sy))];
+  const rect: RegionReading['rect'] = [Math.round(r.x * sx), Math.round(r.y * sy), Math.max(1, Math.round(r.width * sx)), Math.max(1, Math.round(r.height * sy))];
   return { colour, ...toneOfColour(lut, colour), rect };
 }

@@ -1,28 +1,21 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useMemo } from 'react';
+import { useDebounced } from '../../../lib/use-debounced';
 import { ErrorMessage } from '../../../components/ui/alert';
 import { signedStops } from '../../../lib/tone-format';
 import type { SourcedLook } from '../../../lib/look-sources';
 import { sourceKey, type SurfaceSource } from '../../../lib/swatch-source';
 import { useLiveZones, type LiveZones as Answer } from '../api/simulate-zones';
 
-/** `value`, settled: it reaches the result `ms` after the last change (typing and sliding stay cheap). */
-function useSettled<T>(value: T, key: string, ms: number): T {
-  const [v, setV] = useState(value);
-  useEffect(() => {
-    const t = setTimeout(() => setV(value), ms);
-    return () => clearTimeout(t);
-    // the key stands for the value (a fresh object each render)
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [key, ms]);
-  return v;
-}
-
 /**
  * The zone of a surface being typed or slid, through each look, live: a split chip (its colour in
  * daylight beside the zone's grey) per look, computed on the server a moment after the last change.
  */
 export function LiveZones({ looks, surface, onColour, caption }: { looks: SourcedLook[]; surface: SurfaceSource | null; onColour?: (a: Answer) => void; caption?: string }) {
-  const settled = useSettled(surface, sourceKey(surface), 250);
+  // the source's key stands for it (a fresh object each render), so the surface is held per key, then settled
+  const key = sourceKey(surface);
+  // eslint-disable-next-line react-hooks/exhaustive-deps
+  const held = useMemo(() => surface, [key]);
+  const settled = useDebounced(held, 250);
   const q = useLiveZones(looks, settled);
   const data = q.data;
   useEffect(() => {

@@ -2,10 +2,10 @@ import { useRef, type KeyboardEvent, type PointerEvent } from 'react';
 import type { Rect } from '../lib/region';
 
 /**
- * Drag a rectangle over the preview (pixels of the preview image). With the overlay focused, the arrow
+ * Read a region: drag a rectangle over the preview (pixels of the preview image). With the overlay focused, the arrow
  * keys move the rectangle and Shift + arrows resize it, 8 px a step.
  */
-export function SamplerOverlay({ width, height, rect, onRect }: { width: number; height: number; rect: Rect | null; onRect: (r: Rect) => void }) {
+export function RegionOverlay({ width, height, rect, onRect }: { width: number; height: number; rect: Rect | null; onRect: (r: Rect) => void }) {
   const box = useRef<HTMLDivElement>(null);
   const start = useRef<{ x: number; y: number } | null>(null);
   const toPx = (e: PointerEvent) => {
@@ -30,8 +30,8 @@ export function SamplerOverlay({ width, height, rect, onRect }: { width: number;
       ref={box}
       tabIndex={0}
       role="application"
-      aria-label="Sampler: drag a rectangle over the photo, or use the arrow keys (Shift to resize)"
-      data-testid="sampler"
+      aria-label="Read a region: drag a rectangle over the photo, or use the arrow keys (Shift to resize)"
+      data-testid="region-reader"
       className="absolute inset-0 cursor-crosshair touch-none focus:outline-2 focus:outline-accent"
       onPointerDown={(e) => {
         (e.target as HTMLElement).setPointerCapture(e.pointerId);

@@ -4,15 +4,15 @@ import { SelectField, TextField } from '../../../components/ui/field';
 import { ErrorMessage, Notice } from '../../../components/ui/alert';
 import { zoneNumeral } from '../../../../shared/tone/zones';
 import { DEPARTMENTS, type Department } from '../../../../shared/schemas/roles';
-import { toHex, type SampleReading } from '../lib/region';
+import { toHex, type RegionReading } from '../lib/region';
 
-export type { SampleReading };
+export type { RegionReading };
 
 const fmtStops = (s: number) => `${s >= 0 ? '+' : '−'}${Math.abs(s).toFixed(1)} stops`;
 
-/** The sampled region's mean tone and zone, and a form to keep it as a swatch (its spectrum estimated from the colour). */
-export function SamplerPanel({ reading, lookName, photoName, canKeep, canChooseDepartment, myDepartment, onKeep, keeping, error, kept }: {
-  reading: SampleReading | null;
+/** Read a region: the region's mean tone and zone, and a form to keep it as a swatch (its spectrum estimated from the colour). */
+export function RegionReadingPanel({ reading, lookName, photoName, canKeep, canChooseDepartment, myDepartment, onKeep, keeping, error, kept }: {
+  reading: RegionReading | null;
   lookName: string;
   photoName: string;
   canKeep: boolean;
@@ -33,14 +33,14 @@ export function SamplerPanel({ reading, lookName, photoName, canKeep, canChooseD
     onKeep({ name: String(f.get('name') || `Sample from ${photoName}`), department: (f.get('department') as Department) || myDepartment, hex });
   };
   return (
-    <div className="flex flex-col gap-3 text-sm" data-testid="sample-reading">
+    <div className="flex flex-col gap-3 text-sm" data-testid="region-reading">
       <div className="flex items-stretch gap-3">
         <div className="flex h-14 w-24 overflow-hidden rounded-md border border-paper-line" aria-hidden="true">
           <span className="flex-1" style={{ background: hex }} />
           <span className="flex-1" style={{ background: grey }} />
         </div>
         <dl className="grid grid-cols-[auto_1fr] gap-x-3 text-xs">
-          <dt className="text-ink-mute">Zone</dt><dd className="font-semibold" data-testid="sample-zone">{zoneNumeral(reading.zone)}</dd>
+          <dt className="text-ink-mute">Zone</dt><dd className="font-semibold" data-testid="region-zone">{zoneNumeral(reading.zone)}</dd>
           <dt className="text-ink-mute">Tone</dt><dd className="tabular">{fmtStops(reading.stops)}</dd>
           <dt className="text-ink-mute">Colour</dt><dd className="tabular">{hex}</dd>
           <dt className="text-ink-mute">Region</dt><dd className="tabular">{reading.rect[2]} × {reading.rect[3]} px</dd>
