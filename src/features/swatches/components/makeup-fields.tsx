@@ -1,4 +1,5 @@
 import { BLOOD_PRESETS, SKIN_PRESETS } from '../../../../shared/spectral/skin-presets';
+import { PresetButtons } from '../../../components/ui/preset-buttons';
 import type { SwatchView } from '../../../../shared/schemas/swatch';
 import { sourceKey, sourceOfSwatch, type MakeupParams, type SurfaceSource } from '../../../lib/swatch-source';
 
@@ -49,15 +50,7 @@ export function MakeupFields({ makeup, onChange, swatches, errors }: { makeup: M
     <div className="grid gap-3">
       <fieldset>
         <legend className="mb-1 text-xs font-medium uppercase tracking-wide text-ink-soft">Stage blood</legend>
-        <div className="flex flex-wrap gap-1" aria-label="Stage blood presets">
-          {BLOOD_PRESETS.map((b) => (
-            <button key={b.id} type="button" aria-pressed={blood?.id === b.id} title={b.note} onClick={() => onChange(structuredClone(b.makeup) as MakeupParams)}
-              className={`rounded-md border px-2 py-1 text-xs ${blood?.id === b.id ? 'border-ink bg-ink text-paper' : 'border-paper-line bg-paper-raised hover:bg-paper-sunk'}`}>
-              {b.name}
-            </button>
-          ))}
-        </div>
-        {blood && <p className="mt-1 text-xs text-ink-mute">{blood.note}</p>}
+        <PresetButtons label="Stage blood presets" presets={BLOOD_PRESETS} chosen={blood} onPick={(b) => onChange(structuredClone(b.makeup) as MakeupParams)} />
       </fieldset>
       <label className="flex flex-col gap-1 text-xs font-medium uppercase tracking-wide text-ink-soft">Over (the base)
         <select className={`${select} normal-case tracking-normal`} value={over} onChange={(e) => { const s = surfaceOf(e.target.value, swatches); if (s) onChange({ ...makeup, over: s }); }}>

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { PresetButtons } from '../../../components/ui/preset-buttons';
 import { CALM_SKIN, SKIN_CONTROLS, SKIN_PRESETS, bruiseAt } from '../../../../shared/spectral/skin-presets';
 import type { SkinParams } from '../../../lib/swatch-source';
 
@@ -33,15 +34,8 @@ export function SkinFields({ skin, onChange, errors }: { skin: SkinParams; onCha
     <div className="grid gap-3">
       <fieldset>
         <legend className="mb-1 text-xs font-medium uppercase tracking-wide text-ink-soft">Start from</legend>
-        <div className="flex flex-wrap gap-1" aria-label="Skin presets">
-          {SKIN_PRESETS.map((p) => (
-            <button key={p.id} type="button" aria-pressed={current?.id === p.id} title={p.note} onClick={() => { setBruise({ days: BRUISE_DAYS[p.id] ?? 0, base: BRUISE_DAYS[p.id] ? CALM_SKIN : p.skin }); onChange({ ...p.skin }); }}
-              className={`rounded-md border px-2 py-1 text-xs ${current?.id === p.id ? 'border-ink bg-ink text-paper' : 'border-paper-line bg-paper-raised hover:bg-paper-sunk'}`}>
-              {p.name}
-            </button>
-          ))}
-        </div>
-        {current && <p className="mt-1 text-xs text-ink-mute">{current.note}</p>}
+        <PresetButtons label="Skin presets" presets={SKIN_PRESETS} chosen={current}
+          onPick={(p) => { setBruise({ days: BRUISE_DAYS[p.id] ?? 0, base: BRUISE_DAYS[p.id] ? CALM_SKIN : p.skin }); onChange({ ...p.skin }); }} />
       </fieldset>
       <div className="grid gap-2">
         {SKIN_CONTROLS.map((c) => {
