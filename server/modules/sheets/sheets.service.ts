@@ -164,7 +164,11 @@ export class SheetsService {
       boardsPicked: boardIds !== undefined,
       notes: look.notes,
       cautions: SHEET_CAUTIONS,
-      lightBudget: await new LooksService(this.ds, this.dataDir).sheetLightBudget(productionId, lookId).catch(() => null),
+      // a budget that cannot be said (the first look is the eye, which has no EI) is left off; anything else is an error
+      lightBudget: await new LooksService(this.ds, this.dataDir).sheetLightBudget(productionId, lookId).catch((e: unknown) => {
+        if (e instanceof InvalidError) return null;
+        throw e;
+      }),
       generatedAt: new Date().toISOString(),
     };
   }

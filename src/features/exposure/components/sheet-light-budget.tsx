@@ -1,17 +1,15 @@
 import { LightBudgetChart } from '../../../components/ui/light-budget-chart';
 import type { ExposureSheet } from '../../../../shared/schemas/sheet';
 import { relativeLightPhrase } from '../../../../shared/tone/light-budget';
-import { useSheetLightBudget } from '../api/get-sheet-light-budget';
 
 /**
  * The sheet's light budget: this look against the production's other looks (the first look is the
- * reference), this look's bar in the accent colour, at this sheet's camera. Nothing for a look without an
+ * reference), this look's bar in the accent colour, at this sheet's camera — as the sheet's answer carries
+ * it (the server's LooksService.sheetLightBudget, the same the PDF draws). Nothing for a look without an
  * exposure index or a production with one look.
  */
 export function SheetLightBudget({ s }: { s: ExposureSheet }) {
-  const camera = { tStop: s.camera.tStop, fps: s.camera.fps, shutterAngle: s.camera.shutterAngle };
-  const q = useSheetLightBudget(s.production.id, s.look.id, camera);
-  const b = q.data;
+  const b = s.lightBudget;
   if (!s.chain || !b || b.looks.length < 2) return null;
   const ref = b.looks[0];
   const mine = b.looks.find((l) => l.lookId === s.look.id);
