@@ -28,8 +28,23 @@ export interface RunningApp {
   stop(): Promise<void>;
 }
 
-/** Starts the real built app (dist/ must exist: `npm run build`) on a free port with a temporary DATA_DIR. */
+/**
+ * Starts the real built app (dist/ must exist: `npm run build`) on a free port with a temporary DATA_DIR.
+ * A port found free can be taken by another process before the app binds it (the suites run side by side):
+ * then the start is tried again on another port.
+ */
 export async function startServer(): Promise<RunningApp> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await startServerOnce();
+    } catch (e) {
+      if (attempt < 4 && e instanceof Error && /EADDRINUSE/.test(e.message)) continue;
+      throw e;
+    }
+  }
+}
+
+async function startServerOnce(): Promise<RunningApp> {
   if (!fs.existsSync('dist/index.html')) throw new Error('dist/ is missing: run `npm run build` before the browser tests');
   const port = await freePort();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'grisaille-e2e-'));
@@ -44,7 +59,10 @@ export async function startServer(): Promise<RunningApp> {
   const url = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 60_000;
   for (;;) {
-    if (child.exitCode !== null) throw new Error(`server exited early:\n${log}`);
+    if (child.exitCode !== null) {
+      fs.rmSync(dataDir, { recursive: true, force: true });
+      throw new Error(`server exited early:\n${log}`);
+    }
     try {
       const r = await fetch(`${url}/api/health`);
       if (r.ok) break;
