@@ -35,6 +35,7 @@ export default async function run(record: (name: string, value: number, unit: st
   try {
     const ds = g.ctx.ds;
     await getUpsampleTable(dataDir); // the table is built once per data dir at first start; not part of a board's cost
+    await g.ctx.compute.warm(); // nor are the compute threads, which a server starts with itself (server/app.ts)
     const production = await ds.getRepository(Production).findOneByOrFail({ name: DEMO_PRODUCTION_NAME });
     const looks = await ds.getRepository(Look).find({ where: { production: { id: production.id } }, order: { id: 'ASC' }, take: 4 });
     const swatches = await ds.getRepository(Swatch).save(

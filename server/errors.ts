@@ -34,3 +34,10 @@ export class ConflictError extends AppError {
     super(409, 'conflict', message, field);
   }
 }
+
+/** Refused for now (busy, over a limit): the error middleware sends `Retry-After` with it (RFC 9110 §10.2.3). */
+export class RetryLaterError extends AppError {
+  constructor(status: number, code: string, message: string, readonly retryAfterS: number) {
+    super(status, code, message);
+  }
+}

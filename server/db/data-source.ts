@@ -16,17 +16,21 @@ import { Look } from './entities/look.entity';
 import { Swatch } from './entities/swatch.entity';
 import { Board } from './entities/board.entity';
 import { Photo } from './entities/photo.entity';
+import { ActivityEntry } from './entities/activity.entity';
 import { Init1764625000000 } from './migrations/1764625000000-init';
 // MIGRATION IMPORTS (features add theirs here)
 import { BenchBoards1764628004000 } from './migrations/1764628004000-bench-boards';
 import { Photos1764627005000 } from './migrations/1764627005000-photos';
 import { SwatchLightStops1796180652802 } from './migrations/1796180652802-swatch-light-stops';
+import { Activity1796186908164 } from './migrations/1796186908164-activity';
+import { HashedSessions1796187000000 } from './migrations/1796187000000-hashed-sessions';
 
 export const entities = [
   User, Production, Membership, Invitation, PasswordReset, SessionRow, MailMessage,
   // ENTITIES
   Curve, Look, Swatch, Board,
   Photo,
+  ActivityEntry,
 ];
 export const migrations = [
   Init1764625000000,
@@ -34,6 +38,8 @@ export const migrations = [
   BenchBoards1764628004000,
   Photos1764627005000,
   SwatchLightStops1796180652802,
+  Activity1796186908164,
+  HashedSessions1796187000000,
 ];
 
 /**

@@ -1,6 +1,6 @@
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import type { z } from 'zod';
-import { InvalidError } from '../errors';
+import { AppError, InvalidError } from '../errors';
 // importing messages.ts installs the plain messages (zod's global error map)
 import { fieldLabel } from '../../shared/schemas/messages';
 
@@ -46,4 +46,20 @@ export function validate<S extends z.ZodType>(schema: S, where: 'body' | 'query'
     else Object.defineProperty(req, where, { value: result.data, writable: true, configurable: true });
     next();
   };
+}
+
+/**
+ * Multipart bodies are read as they arrive (multer does not decompress): one sent with a Content-Encoding
+ * other than `identity` would be read as a damaged form, so it is refused with a 415 saying why (RFC 9110
+ * §15.5.16: 415 for a content coding the server does not accept). Null when the request may go on.
+ */
+export function plainMultipartOnly(req: Request): AppError | null {
+  const coding = String(req.headers['content-encoding'] ?? 'identity').trim().toLowerCase();
+  if (coding === '' || coding === 'identity') return null;
+  return new AppError(
+    415,
+    'unsupported_encoding',
+    `An upload is sent uncompressed; its Content-Encoding "${coding.slice(0, 40)}" is not accepted (image files are compressed already).`,
+    'file',
+  );
 }

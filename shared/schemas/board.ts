@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { departmentSchema, type Department } from './roles';
+import { itemNameSchema } from './item';
 
 /** Default merge thresholds: within ⅓ stop on the medium yet more than 10 ΔE00 apart to the eye. */
 export const DEFAULT_MERGE_STOPS = 1 / 3;
@@ -9,7 +10,7 @@ export const MAX_BOARD_LOOKS = 4;
 /** At most this many swatches on one board. */
 export const MAX_BOARD_SWATCHES = 500;
 
-const name = z.string().trim().min(1, 'Give a name.').max(120, 'A name takes at most 120 characters.');
+const name = itemNameSchema;
 const id = z.number().int().positive();
 const lookIds = z.array(id).max(MAX_BOARD_LOOKS, `At most ${MAX_BOARD_LOOKS} looks.`).refine((a) => new Set(a).size === a.length, 'A look appears twice.');
 const swatchIds = z.array(id).max(MAX_BOARD_SWATCHES, `At most ${MAX_BOARD_SWATCHES} swatches.`).transform((a) => [...new Set(a)]);

@@ -1,8 +1,8 @@
-import { z } from 'zod';
 import './messages';
+import { nameText } from './names';
 
-/** The name of a production item (swatch, board, curve, look): trimmed, 1–120 characters. */
-export const itemNameSchema = z.string().trim().min(1, 'Give a name.').max(120, 'A name takes at most 120 characters.');
+/** The name of a production item (swatch, board, curve, look, photo): trimmed, 1–120 characters, nothing invisible (names.ts). */
+export const itemNameSchema = nameText(120);
 
 /** What every production item's view carries: its id, name and notes, who made it and when (ISO 8601). */
 export interface ItemView {

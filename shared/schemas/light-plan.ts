@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import './messages';
+import { nameText } from './names';
 import { MODERN_SHADOW_DETAIL_STOPS } from '../tone/media-tone';
 import type { KeyToFill, LampResult } from '../tone/lamp-plan';
 
@@ -15,7 +16,7 @@ export const DEFAULT_PLAN_SHADOW_DETAIL_STOPS = MODERN_SHADOW_DETAIL_STOPS;
 export const LAMP_ROLES = ['key', 'fill'] as const;
 
 export const planLampSchema = z.strictObject({
-  name: z.string().trim().min(1, 'Give the lamp a name.').max(80, 'At most 80 characters.'),
+  name: nameText(80, { empty: 'Give the lamp a name.' }),
   /** luminous intensity on the beam axis, cd */
   intensityCd: z.number().positive().max(1e9).optional(),
   /** luminous flux, lm (with beamAngleDeg) */

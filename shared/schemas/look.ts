@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { toneSettingsSchema, type ToneSettings } from './exposure';
 import { filterRefSchema, lightRefSchema, mediumRefSchema, type LightRef, type MediumRef } from './curve';
+import { itemNameSchema } from './item';
 
 /** Where a filter of a look sits: on the lens (the camera sees through it) or on the light (a gel on the lamps). */
 export const FILTER_PLACES = ['lens', 'light'] as const;
@@ -16,7 +17,7 @@ export type LookFilter = z.infer<typeof lookFilterSchema>;
 export type LookLight = LightRef;
 export type LookMedium = MediumRef;
 
-const name = z.string().trim().min(1, 'Give it a name.').max(120, 'At most 120 characters.');
+const name = itemNameSchema;
 
 /** The light path of a look: light → (surface) → ordered filters → medium; tone settings carry development and print. */
 export const lookDefinitionSchema = z.strictObject({

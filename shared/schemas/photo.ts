@@ -3,6 +3,7 @@ import type { Department } from './roles';
 import { lookDefinitionSchema, type FilterPlace } from './look';
 import type { ToneSettings } from './exposure';
 import type { FilterSource } from './simulate';
+import { itemNameSchema } from './item';
 
 /** Formats accepted for upload, as read from the file's content (never from its name). */
 export const PHOTO_FORMATS = ['jpeg', 'png', 'tiff', 'webp'] as const;
@@ -17,7 +18,7 @@ export const PREVIEW_WIDTH = 2048;
 /** Longest side of the stored thumbnail, px. */
 export const THUMB_SIZE = 480;
 
-const name = z.string().trim().min(1, 'Give it a name.').max(120, 'At most 120 characters.');
+const name = itemNameSchema;
 
 /** PATCH /photos/:photoId */
 export const photoUpdateSchema = z
@@ -94,6 +95,8 @@ export interface PhotoView {
   previewWidth: number;
   previewHeight: number;
   fileBytes: number;
+  /** the name of the file as it was uploaded (UTF-8; the original downloads under it) */
+  originalName: string;
   /** the embedded ICC profile's description, or null (taken as sRGB) */
   iccProfile: string | null;
   orientation: number;

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import './messages';
 import { itemNameSchema, type ItemView } from './item';
+import { optionalNameText } from './names';
 import { makeupParamsSchema, skinParamsSchema, type MakeupParams, type SkinParams } from '../spectral/sources';
 import { departmentSchema, type Department } from './roles';
 
@@ -41,7 +42,7 @@ export const tableInputSchema = z
   .object({
     text: z.string().max(MAX_TABLE_CHARS, 'The file is too large.').optional(),
     samples: pairsSchema.optional(),
-    fileName: z.string().trim().max(200).optional(),
+    fileName: optionalNameText(200).optional(),
     /** 0-based column of the values in the file (default 1) */
     valueColumn: z.number().int().min(1).max(20).optional(),
     /** in a CGATS file of several samples, the one to read: its SAMPLE_ID, SAMPLE_NAME or 1-based index */

@@ -64,6 +64,8 @@ export function normalisePeak(s: Spectrum, what = 'spectrum'): Spectrum {
   let max = 0;
   for (const v of s.values) if (v > max) max = v;
   if (!(max > 0)) throw new SpectralInputError(`the ${what} is zero everywhere in 350–900 nm`);
+  // an overflowing value would turn every other into 0 and itself into NaN (null in JSON): refuse it instead
+  if (!Number.isFinite(max)) throw new SpectralInputError(`the ${what} has values too large to compute with (beyond 1.8e308); check its unit or basis (log10 sensitivities lie around −3 to 3)`);
   return scale(s, 1 / max);
 }
 

@@ -38,6 +38,7 @@ const productionPages: RouteObject[] = [
   { path: P.board(':boardId'), ...page(() => import('./routes/board')) },
   { path: P.photos(), ...page(() => import('./routes/photos')) },
   { path: P.lampPlan(), ...page(() => import('./routes/lamp-plan')) },
+  { path: P.activity(), ...page(() => import('./routes/activity')) },
   // PRODUCTION ROUTES END
 ];
 
@@ -57,6 +58,7 @@ const router = createBrowserRouter([
         children: [
           { path: paths.home(), ...page(() => import('./routes/productions')) },
           { path: paths.outbox(), ...page(() => import('./routes/outbox')) },
+          { path: paths.account(), ...page(() => import('./routes/account')) },
           { path: P.root(), errorElement: <RouteError />, children: productionPages },
         ],
       },

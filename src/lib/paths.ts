@@ -16,6 +16,8 @@ export const paths = {
   resetConfirm: (token: string) => `/reset/${token}`,
   invitation: (token: string) => `/invitation/${token}`,
   outbox: () => '/admin/outbox',
+  /** the signed-in user's own account: password and sessions */
+  account: () => '/account',
   production: (pid: Id) => {
     const base = `/p/${pid}`;
     return {
@@ -34,6 +36,8 @@ export const paths = {
       photos: () => `${base}/photos`,
       /** the gaffer's lamp plan; `lookId` starts it from that look's EI, camera and shadow threshold */
       lampPlan: (lookId?: Id) => (lookId === undefined ? `${base}/lamp-plan` : `${base}/lamp-plan?look=${lookId}`),
+      /** the production's activity log (owners) */
+      activity: () => `${base}/activity`,
     };
   },
 };
@@ -51,6 +55,14 @@ export const apiPaths = {
     setup: () => '/api/auth/setup',
     resetRequest: () => '/api/auth/reset/request',
     resetConfirm: () => '/api/auth/reset/confirm',
+    /** POST { currentPassword, newPassword }: change the signed-in user's password */
+    password: () => '/api/auth/password',
+    /** GET: the signed-in user's sessions */
+    sessions: () => '/api/auth/sessions',
+    /** DELETE: end one of them (by its opaque id) */
+    session: (id: string) => `/api/auth/sessions/${encodeURIComponent(id)}`,
+    /** POST: end every session but this one */
+    endOtherSessions: () => '/api/auth/sessions/end-others',
   },
   invitation: (token: string) => {
     const base = `/api/invitations/${encodeURIComponent(token)}`;
@@ -112,6 +124,9 @@ export const apiPaths = {
       /** POST: start (or find) a look's uncertainty table for the photos overlay; GET …/:key polls it */
       photoUncertainty: () => `${base}/photo-uncertainty`,
       photoUncertaintyStatus: (key: string) => `${base}/photo-uncertainty/${encodeURIComponent(key)}`,
+      /** GET (owners): the activity log, newest first; `before` an entry id, `limit` 1..200, filters `kind` and `actor` (a user id) */
+      activity: (q: { before?: number; limit?: number; kind?: string; actor?: number } = {}) =>
+        `${base}/activity${query(new URLSearchParams(Object.entries(q).filter(([, v]) => v !== undefined).map(([k, v]) => [k, String(v)])))}`,
     };
   },
 };

@@ -11,7 +11,7 @@ import { resolveFilter } from '../../../shared/spectral/compute';
 import { lightThroughGel } from '../../../shared/spectral/lights';
 import { SpectralInputError } from '../../../shared/spectral/errors';
 import { toPairs, type Spectrum } from '../../../shared/spectral/spectrum';
-import { CURVE_BASIS_LABELS, type CurveKind, type CurveOrigin, type CurveOriginInput } from '../../../shared/schemas/curve';
+import { CURVE_BASIS_LABELS, type CurveBasis, type CurveKind, type CurveOrigin, type CurveOriginInput } from '../../../shared/schemas/curve';
 import { loadCurves, resolveFilterRef, resolveLightRef } from '../tones/look-resolve';
 import { readTable, withTableErrors } from './table-input';
 
@@ -33,6 +33,28 @@ function describeParametric(f: CurveOriginInput & { type: 'parametric' }): strin
   return `neutral density ${p.neutralDensity}`;
 }
 
+/** What to say about a basis whose converted values overflowed. */
+const OVERFLOW_HINT: Partial<Record<CurveBasis, string>> = {
+  log10: ' (log10 sensitivities lie around −3 to 3; if these are plain sensitivities, choose the basis "energy", relative sensitivity)',
+  quantum: ' (the values are too large to scale by wavelength)',
+  density: ' (optical densities lie around 0 to 10)',
+};
+
+/**
+ * Refuses a converted curve any of whose samples is not a finite number (a log10 sensitivity of 400 is
+ * 10^400, which overflows; normalising an infinite peak gives NaN): such samples would be stored and sent
+ * as nulls, and every look using the curve would compute nothing. 400 on `field`.
+ */
+function assertFinite(spectrum: Spectrum, field: string, basis: CurveBasis | null): void {
+  const bad = spectrum.values.reduce((n, v) => (Number.isFinite(v) ? n : n + 1), 0);
+  if (!bad) return;
+  const all = bad === spectrum.values.length || spectrum.values.every((v) => !Number.isFinite(v) || v === 0);
+  throw new InvalidError(
+    `${field}: ${all ? 'no value of the curve' : `${bad} of the curve's ${spectrum.values.length} samples`} can be computed from these values${basis ? ` as ${CURVE_BASIS_LABELS[basis]}` : ''}; they overflow${basis ? (OVERFLOW_HINT[basis] ?? '') : ''}.`,
+    field,
+  );
+}
+
 /** Builds a curve of `kind` from its origin (inside the caller's transaction). Throws InvalidError naming the field. */
 export async function buildCurve(em: EntityManager, productionId: number, kind: CurveKind, o: CurveOriginInput): Promise<BuiltCurve> {
   if (o.type === 'table') {
@@ -40,6 +62,7 @@ export async function buildCurve(em: EntityManager, productionId: number, kind: 
     const spectrum = withTableErrors(table, 'origin.table', (pairs) =>
       kind === 'filter' ? filterFromPairs(pairs, o.basis as FilterBasis) : kind === 'medium' ? mediumFromPairs(pairs, o.basis as MediumBasis) : lightFromPairs(pairs),
     );
+    assertFinite(spectrum, table.lines ? 'origin.table.text' : 'origin.table.samples', o.basis);
     const nm = table.pairs.map((p) => p[0]);
     const range = `${Math.min(...nm)}–${Math.max(...nm)} nm`;
     const from = `${table.fileName ? `uploaded file ${table.fileName}` : table.cgats ? 'uploaded file' : 'pairs given through the API'}${table.cgats ? ` (${table.cgats.fileType}, sample "${table.cgats.sampleName}"${table.cgats.sampleCount > 1 ? ` of ${table.cgats.sampleCount}` : ''})` : ''}`;
@@ -57,6 +80,7 @@ export async function buildCurve(em: EntityManager, productionId: number, kind: 
       if (e instanceof SpectralInputError) throw new InvalidError(`origin.filter: ${e.reason}`, 'origin.filter');
       throw e;
     }
+    assertFinite(spectrum, 'origin.filter', null);
     return { origin: { type: 'parametric', filter: o.filter }, samples: round(spectrum), source: describeParametric(o) };
   }
   const curves = await loadCurves(em, productionId, [o.light, ...o.gels]);
@@ -69,6 +93,7 @@ export async function buildCurve(em: EntityManager, productionId: number, kind: 
     if (e instanceof SpectralInputError) throw new InvalidError(`origin.gels: ${e.reason}`, 'origin.gels');
     throw e;
   }
+  assertFinite(spectrum, 'origin.gels', null);
   return {
     origin: { type: 'gel', light: o.light, gels: o.gels },
     samples: round(spectrum),

@@ -4,6 +4,13 @@ import crypto from 'node:crypto';
 import type { PhotoFormat } from '../../../shared/schemas/photo';
 
 /**
+ * How long an incoming file, a staging directory or a render's temporary file may go untouched before the
+ * sweep takes it as left behind, ms: an upload in progress writes to its file continually, an ingest or a
+ * render finishes in well under a minute, so 15 minutes of silence means its process is gone.
+ */
+export const ORPHAN_AGE_MS = 15 * 60_000;
+
+/**
  * Where photo files live. Uploads: `${dataDir}/uploads/photos/<storageKey>/original.<ext>`, `preview.jpg`,
  * `thumb.jpg`; multer's incoming files in `${dataDir}/uploads/.incoming/`. Renders (a cache, safe to
  * delete): `${dataDir}/cache/photo-renders/<storageKey>/<renderKey>.<ext>`. Storage keys are random hex,
@@ -19,24 +26,38 @@ export class PhotoStorage {
     fs.mkdirSync(this.photosRoot, { recursive: true });
     fs.mkdirSync(this.incomingDir, { recursive: true });
     fs.mkdirSync(this.rendersRoot, { recursive: true });
-    this.sweep();
   }
 
-  /** Removes what an interrupted upload left behind (staging directories, incoming files) over an hour old. */
-  private sweep() {
-    const old = Date.now() - 3600_000;
-    const clear = (dir: string, match: (f: string) => boolean) => {
-      for (const f of fs.readdirSync(dir)) {
-        const p = path.join(dir, f);
-        try {
-          if (match(f) && fs.statSync(p).mtimeMs < old) fs.rmSync(p, { recursive: true, force: true });
-        } catch {
-          /* gone meanwhile */
-        }
+  /**
+   * Removes what interrupted uploads and renders left behind (a refused or cut-off upload, a kill -9 mid-
+   * transfer or mid-render): incoming files, `.staging-*` directories, renders' `*.tmp` files, and the
+   * render caches of photos that no longer exist, each only when nothing touched it for `maxAgeMs` (an
+   * upload in progress writes to its file all the time). At start (nothing in progress) `maxAgeMs` is 0.
+   * Answers the paths removed.
+   */
+  sweep(maxAgeMs = ORPHAN_AGE_MS, now = Date.now()): string[] {
+    const removed: string[] = [];
+    const stale = (p: string) => maxAgeMs <= 0 || newestMtime(p) < now - maxAgeMs;
+    const clear = (p: string) => {
+      try {
+        if (!stale(p)) return;
+        fs.rmSync(p, { recursive: true, force: true });
+        removed.push(p);
+      } catch {
+        /* gone meanwhile */
       }
     };
-    clear(this.photosRoot, (f) => f.startsWith('.staging-'));
-    clear(this.incomingDir, () => true);
+    for (const f of listDir(this.incomingDir)) clear(path.join(this.incomingDir, f));
+    for (const f of listDir(this.photosRoot)) if (f.startsWith('.staging-')) clear(path.join(this.photosRoot, f));
+    for (const key of listDir(this.rendersRoot)) {
+      const dir = path.join(this.rendersRoot, key);
+      if (!/^[0-9a-f]{32}$/.test(key) || !fs.existsSync(path.join(this.photosRoot, key))) {
+        clear(dir);
+        continue;
+      }
+      for (const f of listDir(dir)) if (f.endsWith('.tmp')) clear(path.join(dir, f));
+    }
+    return removed;
   }
 
   static newKey(): string {
@@ -64,7 +85,10 @@ export class PhotoStorage {
     return path.join(this.dir(key), 'thumb.jpg');
   }
 
-  /** A fresh staging directory next to the photos (same file system, so the final rename is atomic). */
+  /**
+   * A fresh staging directory next to the photos (same file system, so the final rename is atomic). Call it
+   * inside the block that removes it on failure.
+   */
   stagingDir(): string {
     const d = path.join(this.photosRoot, `.staging-${crypto.randomBytes(8).toString('hex')}`);
     fs.mkdirSync(d);
@@ -112,6 +136,31 @@ export function removePhotoFiles(dataDir: string, keys: string[]): void {
     removeQuietly(path.join(photosRoot, key));
     removeQuietly(path.join(rendersRoot, key));
   }
+}
+
+/** Entries of a directory; none when it is missing or unreadable. */
+function listDir(dir: string): string[] {
+  try {
+    return fs.readdirSync(dir);
+  } catch {
+    return [];
+  }
+}
+
+/** The latest modification time of a file, or of a directory and anything directly in it, ms. */
+function newestMtime(p: string): number {
+  const st = fs.statSync(p);
+  let t = st.mtimeMs;
+  if (st.isDirectory()) {
+    for (const f of listDir(p)) {
+      try {
+        t = Math.max(t, fs.statSync(path.join(p, f)).mtimeMs);
+      } catch {
+        /* gone meanwhile */
+      }
+    }
+  }
+  return t;
 }
 
 export const EXTENSIONS: Record<PhotoFormat, string> = { jpeg: 'jpg', png: 'png', tiff: 'tif', webp: 'webp' };

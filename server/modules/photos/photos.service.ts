@@ -1,15 +1,19 @@
 import fs from 'node:fs';
+import path from 'node:path';
 import { findInProduction } from '../../db/in-production';
 import type { DataSource } from 'typeorm';
 import { Photo } from '../../db/entities/photo.entity';
 import { Look } from '../../db/entities/look.entity';
 import type { Membership } from '../../db/entities/membership.entity';
-import { NotFoundError } from '../../errors';
+import { AppError, NotFoundError } from '../../errors';
 import { assertDepartmentAccess } from '../../policy/department-access';
 import type { LookDefinition } from '../../../shared/schemas/look';
 import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, type PhotoLookView, type PhotoView, type RenderFormat, type RenderStatus, type UncertaintyStatus } from '../../../shared/schemas/photo';
 import { ingestPhoto } from './photo-ingest';
-import { PhotoStorage, removeQuietly } from './photo-storage';
+import { ORPHAN_AGE_MS, PhotoStorage, removeQuietly } from './photo-storage';
+import { fileNamePart, nameFromFile } from './photo-names';
+import { logEvent } from '../../services/log';
+import { cleanName } from '../../../shared/schemas/names';
 import { RenderJobs, renderKey } from './render-jobs';
 import { UncertaintyJobs } from './uncertainty-jobs';
 import { getUpsampleTable } from '../../services/upsample-table';
@@ -19,7 +23,36 @@ import { photoLookView, resolvePhotoLook } from './photo-looks';
 export interface PhotoLimits {
   maxBytes: number;
   maxPixels: number;
+  /** the most one production's photos may take on disk (originals, previews, thumbnails), bytes */
+  quotaBytes: number;
 }
+
+/** Default production quota when none is configured: 2 GiB (env PRODUCTION_QUOTA_MB). */
+export const DEFAULT_QUOTA_BYTES = 2048 * 1024 * 1024;
+
+/** How often the sweep of left-behind upload and render files runs while the app serves, ms. */
+export const SWEEP_EVERY_MS = 10 * 60_000;
+
+/** A size for a person: "150 MB", "1.9 GB", "64 kB" (binary multiples, as the quota is set in MB). */
+export function sizeText(bytes: number): string {
+  const kb = 1024;
+  const mb = kb * 1024;
+  const gb = mb * 1024;
+  const one = (n: number) => (n >= 10 || Number.isInteger(Math.round(n * 10) / 10) ? String(Math.round(n)) : (Math.round(n * 10) / 10).toFixed(1));
+  if (bytes >= gb) return `${one(bytes / gb)} GB`;
+  if (bytes >= mb) return `${one(bytes / mb)} MB`;
+  return `${Math.max(1, Math.round(bytes / kb))} kB`;
+}
+
+/** File system failures that mean the server cannot store files (not the upload's fault). */
+const STORAGE_FAULTS: Record<string, { status: number; code: string; message: string }> = {
+  ENOSPC: { status: 507, code: 'storage_full', message: "The server's disk is full; the photo was not stored. Tell the site operator." },
+  EDQUOT: { status: 507, code: 'storage_full', message: "The server's disk quota is used up; the photo was not stored. Tell the site operator." },
+  EACCES: { status: 500, code: 'storage', message: 'The server cannot write its photo folder; the photo was not stored. Tell the site operator.' },
+  EPERM: { status: 500, code: 'storage', message: 'The server cannot write its photo folder; the photo was not stored. Tell the site operator.' },
+  EROFS: { status: 500, code: 'storage', message: 'The server cannot write its photo folder; the photo was not stored. Tell the site operator.' },
+  ENOTDIR: { status: 500, code: 'storage', message: 'The server cannot write its photo folder; the photo was not stored. Tell the site operator.' },
+};
 
 export function photoUrls(productionId: number, id: number) {
   const base = `/api/productions/${productionId}/photos/${id}`;
@@ -39,6 +72,7 @@ export function photoView(p: Photo, productionId: number): PhotoView {
     previewWidth: p.previewWidth,
     previewHeight: p.previewHeight,
     fileBytes: p.fileBytes,
+    originalName: p.originalName ?? '',
     iccProfile: p.iccProfile,
     orientation: p.orientation,
     isDemo: p.isDemo,
@@ -48,11 +82,13 @@ export function photoView(p: Photo, productionId: number): PhotoView {
   };
 }
 
-/** A name from an upload's file name: no extension, no path, printable, at most 120 characters. */
-export function nameFromFile(original: string | undefined): string {
-  const base = (original ?? '').split(/[\\/]/).pop() ?? '';
-  const stem = base.replace(/\.[^.]*$/, '').replace(/[\u0000-\u001f\u007f]/g, '').replace(/[_]+/g, ' ').trim();
-  return (stem || 'Photo').slice(0, 120);
+/** A file system failure of the server as an AppError saying so (logged for the operator); any other error as it is. */
+function storageFault(e: unknown, m: Membership): unknown {
+  const code = e && typeof e === 'object' && 'code' in e ? String((e as { code: unknown }).code) : '';
+  const fault = e instanceof AppError ? undefined : STORAGE_FAULTS[code];
+  if (!fault) return e;
+  logEvent('photo-storage-failed', { code, productionId: m.production.id, userId: m.user?.id, message: e instanceof Error ? e.message : String(e) }, 'warn');
+  return new AppError(fault.status, fault.code, fault.message);
 }
 
 /**
@@ -63,15 +99,74 @@ export class PhotosService {
   readonly storage: PhotoStorage;
   readonly renders: RenderJobs;
   readonly uncertainty: UncertaintyJobs;
+  private sweepTimer: NodeJS.Timeout | null = null;
+  /** Sizes of the previews and thumbnails of stored photos by storage key, bytes (the files never change). */
+  private derivedBytes = new Map<string, number>();
 
   constructor(
     private ds: DataSource,
     private dataDir: string,
-    readonly limits: PhotoLimits = { maxBytes: MAX_PHOTO_BYTES, maxPixels: MAX_PHOTO_PIXELS },
+    readonly limits: PhotoLimits = { maxBytes: MAX_PHOTO_BYTES, maxPixels: MAX_PHOTO_PIXELS, quotaBytes: DEFAULT_QUOTA_BYTES },
   ) {
     this.storage = new PhotoStorage(dataDir);
     this.renders = new RenderJobs(this.storage, () => getUpsampleTable(dataDir));
     this.uncertainty = new UncertaintyJobs(() => getUpsampleTable(dataDir));
+    // at start nothing is in progress: whatever an earlier process left behind goes now, whatever its age
+    this.sweepOrphans(0);
+    this.sweepTimer = setInterval(() => this.sweepOrphans(), SWEEP_EVERY_MS);
+    this.sweepTimer.unref();
+  }
+
+  /**
+   * Removes left-behind upload and render files (PhotoStorage.sweep) untouched for `maxAgeMs`; runs at start
+   * and every SWEEP_EVERY_MS. Answers the paths removed and tells the operator's log when there were any.
+   */
+  sweepOrphans(maxAgeMs = ORPHAN_AGE_MS): string[] {
+    const removed = this.storage.sweep(maxAgeMs);
+    if (removed.length) logEvent('orphan-files-removed', { count: removed.length, paths: removed.slice(0, 20) });
+    return removed;
+  }
+
+  /** Stops the periodic sweep and waits for the render running now (the app's close calls this). */
+  async close(): Promise<void> {
+    if (this.sweepTimer) clearInterval(this.sweepTimer);
+    this.sweepTimer = null;
+    await this.renders.idle();
+  }
+
+  /** Bytes the photos of a production take on disk: originals (their recorded size) plus previews and thumbnails. */
+  async usedBytes(productionId: number): Promise<number> {
+    const rows = await this.ds.getRepository(Photo).find({ where: { production: { id: productionId } }, select: { id: true, storageKey: true, fileBytes: true } });
+    let total = 0;
+    for (const p of rows) {
+      let derived = this.derivedBytes.get(p.storageKey);
+      if (derived === undefined) {
+        derived = 0;
+        for (const f of [this.storage.preview(p.storageKey), this.storage.thumb(p.storageKey)]) {
+          try {
+            derived += fs.statSync(f).size;
+          } catch {
+            /* a missing file takes no room */
+          }
+        }
+        this.derivedBytes.set(p.storageKey, derived);
+      }
+      total += p.fileBytes + derived;
+    }
+    return total;
+  }
+
+  /** Refuses (413) a photo of `bytes` that would take the production over its quota. */
+  private async assertFits(productionId: number, bytes: number): Promise<void> {
+    const quota = this.limits.quotaBytes;
+    const used = await this.usedBytes(productionId);
+    if (used + bytes <= quota) return;
+    throw new AppError(
+      413,
+      'quota_exceeded',
+      `This production's photos use ${sizeText(used)} of its ${sizeText(quota)}; this file (${sizeText(bytes)}) does not fit. Delete photos or ask the site operator to raise PRODUCTION_QUOTA_MB.`,
+      'file',
+    );
   }
 
   async list(productionId: number): Promise<PhotoView[]> {
@@ -89,18 +184,25 @@ export class PhotosService {
   }
 
   /**
-   * Stores an upload: checks it (ingestPhoto), writes original, preview and thumbnail into a staging
-   * directory, moves it into place, then inserts the row in a transaction. On any failure the files are
-   * removed and nothing is stored.
+   * Stores an upload: checks the production's quota with the upload's size, checks the file (ingestPhoto),
+   * writes original, preview and thumbnail into a staging directory, checks the quota again with the
+   * preview and thumbnail, moves it into place, then inserts the row in a transaction. Everything from the
+   * staging directory on sits inside the guarded block: on any failure the files are removed (the incoming
+   * file too) and nothing is stored. A file system failure of the server is a 500/507 saying so.
    */
-  async create(m: Membership, upload: { path: string; originalname?: string }, fields: { name?: string; notes?: string }): Promise<PhotoView> {
-    const staging = this.storage.stagingDir();
+  async create(m: Membership, upload: { path: string; originalname?: string; size?: number }, fields: { name?: string; notes?: string }): Promise<PhotoView> {
+    let staging: string | null = null;
     const key = PhotoStorage.newKey();
     let committed = false;
     try {
+      await this.assertFits(m.production.id, upload.size ?? fs.statSync(upload.path).size);
+      staging = this.storage.stagingDir();
       const info = await ingestPhoto(upload.path, staging, { maxPixels: this.limits.maxPixels });
+      const derived = fs.statSync(path.join(staging, 'preview.jpg')).size + fs.statSync(path.join(staging, 'thumb.jpg')).size;
+      await this.assertFits(m.production.id, info.fileBytes + derived);
       this.storage.commit(staging, key);
       committed = true;
+      this.derivedBytes.set(key, derived);
       const saved = await this.ds.transaction(async (t) =>
         t.save(
           Photo,
@@ -110,7 +212,7 @@ export class PhotosService {
             department: m.department,
             name: fields.name ?? nameFromFile(upload.originalname),
             notes: fields.notes ?? '',
-            originalName: (upload.originalname ?? '').slice(0, 200),
+            originalName: [...cleanName(upload.originalname ?? '')].slice(0, 200).join(''),
             storageKey: key,
             isDemo: false,
             ...info,
@@ -119,9 +221,12 @@ export class PhotosService {
       );
       return photoView(saved, m.production.id);
     } catch (e) {
-      removeQuietly(staging);
-      if (committed) this.storage.remove(key);
-      throw e;
+      if (staging) removeQuietly(staging);
+      if (committed) {
+        this.storage.remove(key);
+        this.derivedBytes.delete(key);
+      }
+      throw storageFault(e, m);
     } finally {
       removeQuietly(upload.path);
     }
@@ -150,6 +255,7 @@ export class PhotosService {
       return p.storageKey;
     });
     this.storage.remove(key);
+    this.derivedBytes.delete(key);
   }
 
   /** A stored file of a photo: its path and type. */
@@ -218,22 +324,4 @@ export class PhotosService {
     const parts = [fileNamePart(p.name, 'photo'), ...(lookPart ? [fileNamePart(lookPart, 'look')] : ['grey']), key.slice(0, 8)];
     return { path: f.file, type: f.format === 'jpeg' ? 'image/jpeg' : 'image/png', downloadName: `${parts.join('_')}.${ext}` };
   }
-}
-
-/**
- * One part of a download's file name from a user's name for something: letters (any script, NFC), digits,
- * spaces as hyphens, `.`, `-`; no path separators, quotes, control characters or leading dots; at most 80
- * characters. The header carries it as RFC 6266 `filename*` (UTF-8) with an ASCII `filename` fallback.
- */
-export function fileNamePart(name: string, fallback: string): string {
-  const safe = name
-    .normalize('NFC')
-    .replace(/[^\p{L}\p{M}\p{N} .-]+|\.{2,}/gu, ' ')
-    .trim()
-    .replace(/\s+/g, '-')
-    .replace(/-{2,}/g, '-')
-    .replace(/^[.-]+|[.-]+$/g, '')
-    .slice(0, 80)
-    .replace(/[.-]+$/, '');
-  return safe || fallback;
 }

@@ -4,6 +4,8 @@
  * look is never rendered twice: a finished render is a file in the cache, found by its key. The client
  * polls a job's status (stage and progress) and downloads the file when it is done. Statuses leave
  * here with `url` null; the service fills in the route.
+ * A render is written to a `*.tmp` file beside its final name, then renamed: a failed render removes it,
+ * and one a killed process left is removed by the storage sweep (PhotoStorage.sweep).
  */
 import crypto from 'node:crypto';
 import fs from 'node:fs';
@@ -159,9 +161,15 @@ export class RenderJobs {
           s.progress = p.progress;
         },
       });
+      // a photo deleted while it rendered gets no cache folder back (it would be left behind)
+      if (!fs.existsSync(this.storage.dir(storageKey))) throw new Error('the photo was deleted while it rendered');
       fs.mkdirSync(path.dirname(file), { recursive: true });
       fs.writeFileSync(tmp, result.data);
       fs.renameSync(tmp, file);
+      if (!fs.existsSync(this.storage.dir(storageKey))) {
+        fs.rmSync(this.storage.renderDir(storageKey), { recursive: true, force: true });
+        throw new Error('the photo was deleted while it rendered');
+      }
       Object.assign(s, this.doneStatus(s.key, s.format, file, false));
       this.prune(storageKey);
     } catch (e) {

@@ -5,6 +5,7 @@ import { validate } from '../../middleware/validate';
 import { productionCreateSchema, productionUpdateSchema } from '../../../shared/schemas/auth';
 import { handle, productionRoute } from '../route-registry';
 import { ProductionsService } from './productions.service';
+import { activityRecorder } from '../../services/activity/activity-recorder';
 
 export function productionsRouter(ctx: AppContext): Router {
   const r = Router();
@@ -15,7 +16,12 @@ export function productionsRouter(ctx: AppContext): Router {
     '/productions',
     requireAuth,
     validate(productionCreateSchema),
-    handle(async (req, res) => void res.status(201).json({ production: await svc.create(req.user!, req.body) })),
+    handle(async (req, res) => {
+      const production = await svc.create(req.user!, req.body);
+      // the first entry of its log (outside productionRoute: there is no production before this)
+      await activityRecorder(ctx.ds).record({ productionId: production.id, actorId: req.user!.id, actorName: req.user!.name, action: 'created', kind: 'production', itemId: production.id, itemName: production.name, detail: '' });
+      res.status(201).json({ production });
+    }),
   );
 
   productionRoute(r, ctx, 'get', '', 'viewer', handle(async (req, res) => void res.json({ production: await svc.overview(req.membership!) })));

@@ -7,6 +7,7 @@
  */
 import { CgatsError, looksLikeCgats, parseCgats, type CgatsFile, type CgatsSample } from '../../../shared/import/cgats';
 import { itemNameSchema } from '../../../shared/schemas/item';
+import { cleanName } from '../../../shared/schemas/names';
 import { MAX_IMPORT_SAMPLES, type SwatchImportPreview, type SwatchOrigin } from '../../../shared/schemas/swatch';
 import { InvalidError } from '../../errors';
 import type { ReadTable } from '../library/table-input';
@@ -30,7 +31,7 @@ export interface ResolvedSample {
 
 /** The upload's text: UTF-8 (else Latin-1, as older instrument software writes); binary content is refused. */
 export function uploadText(file: ImportUpload): { text: string; fileName: string } {
-  const fileName = (file.originalname || 'measurements.txt').slice(0, 200);
+  const fileName = [...(cleanName(file.originalname ?? '') || 'measurements.txt')].slice(0, 200).join('');
   if (file.buffer.includes(0)) throw new InvalidError(`${fileName} is not a text file; export the measurements as CGATS.17 text (.txt, .cgats, .ti3 or .sp).`, 'file');
   let text: string;
   try {
@@ -44,9 +45,9 @@ export function uploadText(file: ImportUpload): { text: string; fileName: string
   return { text, fileName };
 }
 
-/** A name a swatch can take (trimmed, at most 120 characters). */
+/** A name a swatch can take (trimmed, no control or invisible characters, at most 120 characters). */
 function swatchName(s: CgatsSample): string {
-  const n = s.name.trim().slice(0, 120);
+  const n = [...cleanName(s.name)].slice(0, 120).join('').trim();
   return itemNameSchema.safeParse(n).success ? n : `Sample ${s.id}`.slice(0, 120);
 }
 

@@ -1,7 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import type { AppContext } from '../../context';
-import { validate, zodToInvalid } from '../../middleware/validate';
+import { plainMultipartOnly, validate, zodToInvalid } from '../../middleware/validate';
 import { handle, productionRoute, pid, idParam, itemRoutes } from '../route-registry';
 import { departmentSchema } from '../../../shared/schemas/roles';
 import { MAX_IMPORT_BYTES, swatchCreateSchema, swatchImportFieldsSchema, swatchUpdateSchema } from '../../../shared/schemas/swatch';
@@ -12,7 +12,10 @@ import { ToneService } from '../tones/tone.service';
 /** One spectrophotometer file in the multipart part `file` (kept in memory, at most MAX_IMPORT_BYTES), plus the form fields. */
 const uploadMeasurements: RequestHandler = (req, res, next) => {
   if (!req.is('multipart/form-data')) return next(new InvalidError('Send the measurements as multipart/form-data, the file in a part named "file".', 'file'));
-  multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_IMPORT_BYTES, files: 1, fields: 4, fieldSize: 1024, parts: 6 } }).single('file')(req, res, (err: unknown) => {
+  const refused = plainMultipartOnly(req);
+  if (refused) return next(refused);
+  // file names as UTF-8, as browsers send them (busboy reads a filename parameter as latin1 otherwise)
+  multer({ storage: multer.memoryStorage(), defParamCharset: 'utf8', limits: { fileSize: MAX_IMPORT_BYTES, files: 1, fields: 4, fieldSize: 1024, parts: 6 } }).single('file')(req, res, (err: unknown) => {
     if (!err) return next();
     if (err instanceof multer.MulterError) {
       if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'too_large', `The file is larger than the ${MAX_IMPORT_BYTES / 1024 / 1024} MB limit.`, 'file'));

@@ -6,6 +6,7 @@ import { authoredView } from '../authored';
 import { findInProduction } from '../../db/in-production';
 import type { DataSource, EntityManager } from 'typeorm';
 import { Swatch } from '../../db/entities/swatch.entity';
+import { Photo } from '../../db/entities/photo.entity';
 import type { Membership } from '../../db/entities/membership.entity';
 import type { Department } from '../../../shared/schemas/roles';
 import { swatchCreateSchema, swatchImportFieldsSchema, swatchUpdateSchema, type SwatchImportPreview, type SwatchOrigin, type SwatchView } from '../../../shared/schemas/swatch';
@@ -35,6 +36,24 @@ export function resolveSwatchOrigin(o: OriginInput, field = 'origin', table: Ups
   if (o.type === 'colour') return { origin: { type: 'colour', colour: o.colour }, hex: hexOfColour(o.colour, `${field}.colour`), reflectance: null };
   if (o.type === 'photo') return { origin: { type: 'photo', photoId: o.photoId, rect: o.rect, colour: o.colour }, hex: hexOfColour(o.colour, `${field}.colour`), reflectance: null };
   return measuredFromTable(readTable(o.table, `${field}.table`), o.basis, `${field}.table`);
+}
+
+/**
+ * A photo origin must name a photo of the swatch's production and a region inside its pixels (the
+ * oriented width × height the photo's view gives): 400 naming `origin.photoId` or `origin.rect` otherwise.
+ * A photo of another production is answered as one that does not exist (its existence is not revealed).
+ */
+export async function assertPhotoOrigin(em: EntityManager, productionId: number, o: OriginInput, field = 'origin'): Promise<void> {
+  if (o.type !== 'photo') return;
+  const photo = await em.findOne(Photo, { where: { id: o.photoId, production: { id: productionId } }, select: { id: true, width: true, height: true } });
+  if (!photo) throw new InvalidError(`${field}.photoId: there is no photo ${o.photoId} in this production.`, `${field}.photoId`);
+  const [x, y, w, h] = o.rect;
+  if (x + w > photo.width || y + h > photo.height) {
+    throw new InvalidError(
+      `${field}.rect: the region (${w} × ${h} px at ${x}, ${y}) reaches outside the photo, which is ${photo.width} × ${photo.height} px; it must lie inside it.`,
+      `${field}.rect`,
+    );
+  }
 }
 
 /** A swatch for the API; with `table`, its reflectance (measured, or the estimate) is included. */
@@ -90,6 +109,7 @@ export class SwatchesService {
     const department = input.department ?? m.department;
     assertDepartmentAccess(m, department, 'swatches');
     const table = await this.table();
+    await assertPhotoOrigin(em, m.production.id, input.origin);
     const resolved = resolveSwatchOrigin(input.origin, 'origin', table);
     const s = await em.save(Swatch, em.create(Swatch, { production: m.production, department, name: input.name, notes: input.notes, lightStops: input.lightStops, ...resolved, createdBy: m.user }));
     return swatchView(s, table);
@@ -176,7 +196,13 @@ export class SwatchesService {
       const s = await this.entity(m.production.id, id, t);
       assertDepartmentAccess(m, s.department, 'swatches');
       if (input.department && input.department !== s.department) assertDepartmentAccess(m, input.department, 'swatches');
-      if (input.origin) Object.assign(s, resolveSwatchOrigin(input.origin, 'origin', table));
+      if (input.origin) {
+        // the same photo region sent back with an edit is kept as it was, even if its photo has gone since
+        const o = input.origin;
+        const unchanged = o.type === 'photo' && s.origin.type === 'photo' && s.origin.photoId === o.photoId && s.origin.rect.join() === o.rect.join();
+        if (!unchanged) await assertPhotoOrigin(t, m.production.id, o);
+        Object.assign(s, resolveSwatchOrigin(input.origin, 'origin', table));
+      }
       if (input.name !== undefined) s.name = input.name;
       if (input.notes !== undefined) s.notes = input.notes;
       if (input.department) s.department = input.department;

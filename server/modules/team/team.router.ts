@@ -3,6 +3,8 @@ import rateLimit from 'express-rate-limit';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
 import { AppError } from '../../errors';
+import { IGNORED_FORWARDED_FOR } from '../auth/auth.router';
+import { activityRecorder } from '../../services/activity/activity-recorder';
 import { acceptInvitationSchema, invitationCreateSchema, membershipUpdateSchema } from '../../../shared/schemas/auth';
 import { handle, productionRoute, pid, idParam } from '../route-registry';
 import { TeamService } from './team.service';
@@ -36,11 +38,14 @@ export function teamRouter(ctx: AppContext): Router {
   const limiter = rateLimit({
     windowMs: 15 * 60 * 1000,
     limit: ctx.env.authRateLimit,
+    validate: IGNORED_FORWARDED_FOR,
     handler: (_q, _s, next) => next(new AppError(429, 'rate_limited', 'Too many attempts; wait a few minutes and try again.')),
   });
   r.get('/invitations/:token', limiter, handle(async (req, res) => void res.json({ invitation: await svc.describe(String(req.params.token)) })));
   r.post('/invitations/:token/accept', limiter, validate(acceptInvitationSchema), handle(async (req, res) => {
     const { user, productionId } = await svc.accept(String(req.params.token), req.body);
+    // a member joined: outside productionRoute (the person is not a member until now), so recorded here
+    void activityRecorder(ctx.ds).record({ productionId, actorId: user.id, actorName: user.name, action: 'created', kind: 'member', itemId: null, itemName: user.name, detail: 'accepted an invitation' });
     const csrfToken = await logIn(req, user);
     res.json({ user: publicUser(user), productionId, csrfToken });
   }));

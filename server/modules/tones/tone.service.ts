@@ -9,10 +9,12 @@ import type { LookDefinition } from '../../../shared/schemas/look';
 import { toneSettingsSchema } from '../../../shared/schemas/exposure';
 import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
 import { getUpsampleTable } from '../../services/upsample-table';
+import { computePoolFor } from '../../services/compute-pool';
 import { composeLook } from '../../../shared/look/compose-look';
 import { loadCurves, lookSpectra, refsOfLook, resolveLook } from './look-resolve';
 import { swatchSpectrum } from './swatch-spectra';
 import { lookTones, type ToneLook, type ToneSwatch } from './board-tones';
+import { prefillRanges, rangesJob } from './tone-ranges';
 
 /** A look to compute with: a saved one, or an unsaved definition from the bench. */
 export type LookInput = LookDefinition & { id: number; name: string };
@@ -40,12 +42,23 @@ export function toneSwatches(rows: Swatch[], table: UpsampleTable): ToneSwatch[]
   return rows.map((s) => ({ id: s.id, name: s.name, ...swatchSpectrum(s, table), lightStops: s.lightStops ?? 0 }));
 }
 
-/** Tones of boards and swatches through looks, computed on the server per request. */
+/**
+ * Tones of boards and swatches through looks, computed on the server per request. The tone ranges a
+ * request lacks are computed first in the app's compute pool (tone-ranges.ts `prefillRanges`), so the
+ * main thread only composes the tones.
+ */
 export class ToneService {
-  constructor(private ds: DataSource, private dataDir: string) {}
+  constructor(private ds: DataSource, private dataDir: string) {
+    computePoolFor(ds)?.preload(rangesJob);
+  }
 
   private table() {
     return getUpsampleTable(this.dataDir);
+  }
+
+  /** The ranges these tones need, computed off the main thread (kept for the composition that follows). */
+  private prefill(looks: ToneLook[], swatches: ToneSwatch[]): Promise<void> {
+    return prefillRanges(computePoolFor(this.ds), looks.map((l) => l.composed.path), swatches);
   }
 
   async boardTones(productionId: number, boardId: number, q: { looks?: number[]; mergeStops?: number; mergeDeltaE?: number }): Promise<BoardTones> {
@@ -63,6 +76,7 @@ export class ToneService {
     const mergeDeltaE = q.mergeDeltaE ?? board.mergeDeltaE;
     const toneLooks = await prepareToneLooks(em, productionId, looks, table);
     const swatches = toneSwatches(board.swatches, table);
+    await this.prefill(toneLooks, swatches);
     const out = toneLooks.map((l) => lookTones(l, swatches, mergeStops, mergeDeltaE));
     return { boardId, mergeStops, mergeDeltaE, looks: out, ms: performance.now() - t0 };
   }
@@ -75,6 +89,7 @@ export class ToneService {
     const table = await this.table();
     const toneLooks = await prepareToneLooks(em, productionId, looks, table);
     const swatches = toneSwatches([s], table);
+    await this.prefill(toneLooks, swatches);
     return { swatchId, looks: toneLooks.map((l) => lookTones(l, swatches, 0, Infinity)) };
   }
 
@@ -86,6 +101,7 @@ export class ToneService {
     const table = await this.table();
     const [toneLook] = await prepareToneLooks(em, productionId, [look], table);
     const swatches = toneSwatches(board.swatches, table);
+    await this.prefill([toneLook], swatches);
     return {
       tones: lookTones(toneLook, swatches, board.mergeStops, board.mergeDeltaE),
       swatches: board.swatches.map((s, i) => ({ id: s.id, name: s.name, hex: s.hex, estimated: swatches[i].estimated })),

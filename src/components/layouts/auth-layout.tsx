@@ -1,11 +1,14 @@
 import type { FormEvent, ReactNode } from 'react';
 import { Logo } from '../ui/logo';
 import { ZoneRamp } from '../ui/zone-ramp';
+import { DemoBanner } from './demo-banner';
 
 /** The frame of the signed-out pages. */
 export function AuthLayout({ title, children }: { title: string; children: ReactNode }) {
   return (
-    <div className="flex min-h-screen items-center justify-center p-6">
+    <div className="flex min-h-screen flex-col">
+      <DemoBanner />
+      <div className="flex flex-1 items-center justify-center p-6">
       <div className="w-full max-w-sm">
         <div className="mb-6 flex items-center gap-2 text-xl font-semibold tracking-tight"><Logo size={28} /> Grisaille</div>
         <div className="rounded-lg border border-paper-line bg-paper-raised p-6">
@@ -14,6 +17,7 @@ export function AuthLayout({ title, children }: { title: string; children: React
         </div>
         <div className="mt-6"><ZoneRamp compact /></div>
         <p className="mt-2 text-xs text-ink-mute">How every colour on a black-and-white shoot will read as grey.</p>
+      </div>
       </div>
     </div>
   );

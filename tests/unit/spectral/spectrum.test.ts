@@ -112,3 +112,15 @@ describe('spectra are values', () => {
     expect(toPairs(r)[GRID_SIZE - 1]).toEqual([900, 3]);
   });
 });
+
+describe('curves whose values would overflow (issue 14: a curve that turns into nulls is refused)', () => {
+  it('a log10 sensitivity curve of 400 (10^400 overflows a double) is refused with the reason, not turned into NaN', () => {
+    const e = errorOf(() => mediumFromPairs(cover((nm) => 400 - (((nm - 550) / 100) ** 2)), 'log10'));
+    expect(e.reason).toMatch(/too large to compute with .*log10 sensitivities lie around/);
+  });
+
+  it('an energy curve with a value beyond the double range is refused with a reason, not turned into NaN', () => {
+    const e = errorOf(() => mediumFromPairs([[400, 1], [500, Infinity], [700, 1]]));
+    expect(e.reason).toMatch(/not a number|too large/);
+  });
+});

@@ -65,6 +65,17 @@ export function readRegion(img: ImageData, r: Rect, lut: PreviewLut, original: {
   const colour = meanColour(img, r);
   const sx = original.width / img.width;
   const sy = original.height / img.height;
-  const rect: RegionReading['rect'] = [Math.round(r.x * sx), Math.round(r.y * sy), Math.max(1, Math.round(r.width * sx)), Math.max(1, Math.round(r.height * sy))];
-  return { colour, ...toneOfColour(lut, colour), rect };
+  const [x, width] = scaleSpan(r.x, r.width, sx, original.width);
+  const [y, height] = scaleSpan(r.y, r.height, sy, original.height);
+  return { colour, ...toneOfColour(lut, colour), rect: [x, y, width, height] };
+}
+
+/**
+ * One side of a rectangle scaled to the original: start and length rounded, at least 1 px, and kept inside
+ * 0..size (rounding start and length separately could reach 1 px past the edge, which the server refuses).
+ */
+export function scaleSpan(start: number, length: number, scale: number, size: number): [number, number] {
+  const s = Math.min(Math.max(0, Math.round(start * scale)), size - 1);
+  const l = Math.min(Math.max(1, Math.round(length * scale)), size - s);
+  return [s, l];
 }
