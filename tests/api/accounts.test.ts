@@ -4,7 +4,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { startTestApp, withTestApp, type Agent, type TestApp } from '../helpers/api';
+import { resetHandled, startTestApp, withTestApp, type Agent, type TestApp } from '../helpers/api';
 import { User } from '../../server/db/entities/user.entity';
 import { SessionRow } from '../../server/db/entities/session.entity';
 import { hashPassword } from '../../server/modules/auth/password';
@@ -18,17 +18,6 @@ afterAll(async () => t.close());
 const CAMERA = 'camera@demo.grisaille.test';
 const PASSWORD = 'grisaille-demo';
 
-/** Resolves when the background work of a reset request for `email` is done. Call it before the request. */
-function resetHandled(email: string): Promise<void> {
-  return new Promise((resolve) => {
-    const off = onLogEvent((l) => {
-      if ((l.event === 'reset-requested' || l.event === 'reset-request-failed') && l.emailHash === emailHash(email)) {
-        off();
-        resolve();
-      }
-    });
-  });
-}
 
 /** Asks for a reset link for `email` and answers its token (from the fake outbox). */
 async function resetToken(app: TestApp, email: string): Promise<string> {

@@ -1,27 +1,11 @@
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { startTestApp, type TestApp } from '../helpers/api';
+import { resetHandled, startTestApp, type TestApp } from '../helpers/api';
 import { PasswordReset } from '../../server/db/entities/password-reset.entity';
-import { onLogEvent } from '../../server/services/log';
-import { emailHash } from '../../server/modules/auth/sign-in-throttle';
 
 let t: TestApp;
 beforeAll(async () => void (t = await startTestApp()));
 afterAll(async () => t.close());
 
-/**
- * The answer to a reset request comes before the account lookup and the mail (so its timing reveals
- * nothing); this resolves when that background work for `email` is done. Call it before the request.
- */
-function resetHandled(email: string): Promise<void> {
-  return new Promise((resolve) => {
-    const off = onLogEvent((l) => {
-      if ((l.event === 'reset-requested' || l.event === 'reset-request-failed') && l.emailHash === emailHash(email)) {
-        off();
-        resolve();
-      }
-    });
-  });
-}
 
 it('resets a password through the mailed link, once, within the hour', async () => {
   const a = await t.agent();

@@ -10,6 +10,8 @@ import { Production } from '../../server/db/entities/production.entity';
 import { DEMO_PASSWORD, DEMO_PRODUCTION_NAME } from '../../server/db/seed';
 import { MailMessage } from '../../server/db/entities/mail-message.entity';
 import type { Env } from '../../server/env';
+import { onLogEvent } from '../../server/services/log';
+import { emailHash } from '../../server/modules/auth/sign-in-throttle';
 
 export type Agent = ReturnType<typeof request.agent> & { csrfToken: string };
 
@@ -109,4 +111,19 @@ export function signedInForFile(email: string): { app: () => TestApp; agent: () 
   });
   afterAll(async () => t?.close());
   return { app: () => t!, agent: () => a! };
+}
+
+/**
+ * The answer to a reset request comes before the account lookup and the mail (so its timing reveals
+ * nothing); this resolves when that background work for `email` is done. Call it before the request.
+ */
+export function resetHandled(email: string): Promise<void> {
+  return new Promise((resolve) => {
+    const off = onLogEvent((l) => {
+      if ((l.event === 'reset-requested' || l.event === 'reset-request-failed') && l.emailHash === emailHash(email)) {
+        off();
+        resolve();
+      }
+    });
+  });
 }
