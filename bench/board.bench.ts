@@ -6,6 +6,11 @@
  * of 9 warm runs; target < 100 ms), also named `board_200x4_ranges_ms` (target ≤ 150 ms) since it holds the
  * ranges; `board_200x4_cold_ms` = `board_200x4_ranges_cold_ms` (the first run, which also estimates 200
  * spectra from their colours and solves their 800 ranges' programs); `board_200x4_http_ms` (through HTTP).
+ *
+ * Then a board of 2,000 swatches through the same four looks, through HTTP (the route, its JSON and all):
+ * `board_2000x4_ms` (median of 5 warm requests, after one cold request that fills the range cache; target
+ * ≤ 300 ms) and `board_2000x4_json_mb` (the answer's size, 10⁶ bytes; target ≤ 5 MB). A board this large
+ * exists only here: the bench writes it straight to the database.
  */
 import fs from 'node:fs';
 import os from 'node:os';
@@ -21,6 +26,10 @@ import { ToneService } from '../server/modules/tones/tone.service';
 import { resolveSwatchOrigin } from '../server/modules/swatches/swatches.service';
 import { getUpsampleTable } from '../server/services/upsample-table';
 import { medianMs } from './lib';
+
+/** Size of the large board, and how many warm requests its median takes. */
+const LARGE_BOARD_SWATCHES = Number(process.env.BENCH_BOARD_SWATCHES ?? 2000);
+const LARGE_BOARD_RUNS = 5;
 
 /** Deterministic colours (a small LCG), so every run times the same board. */
 function colours(n: number, seed = 20240601): string[] {
@@ -60,6 +69,22 @@ export default async function run(record: (name: string, value: number, unit: st
       const r = await agent.get(`/api/productions/${production.id}/boards/${board.id}/tones`);
       if (r.status !== 200) throw new Error(`board bench: HTTP ${r.status}`);
     }, 9), 'ms');
+
+    const n = LARGE_BOARD_SWATCHES;
+    const many = await ds.getRepository(Swatch).save(
+      colours(n).map((hex, i) => ds.getRepository(Swatch).create({ production, department: 'costume', name: `Bench large swatch ${i + 1}`, notes: '', ...resolveSwatchOrigin({ type: 'colour', colour: { space: 'hex', hex } }) })),
+      { chunk: 200 },
+    );
+    const large = await ds.getRepository(Board).save({ production, department: 'costume', name: `Bench ${n} × 4`, notes: '', lookIds: looks.map((l) => l.id), mergeStops: 1 / 3, mergeDeltaE: 10, swatches: many });
+    let bytes = 0;
+    const ask = async () => {
+      const r = await agent.get(`/api/productions/${production.id}/boards/${large.id}/tones`).maxResponseSize(1e9);
+      if (r.status !== 200) throw new Error(`board bench: HTTP ${r.status}`);
+      bytes = Buffer.byteLength(r.text);
+    };
+    await ask(); // cold: estimates the spectra and solves the ranges (cached for the warm runs, as on a server)
+    record(`board_${n}x4_ms`, await medianMs(ask, LARGE_BOARD_RUNS), 'ms');
+    record(`board_${n}x4_json_mb`, bytes / 1e6, 'MB');
   } finally {
     await g.close();
     fs.rmSync(dataDir, { recursive: true, force: true });

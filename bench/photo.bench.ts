@@ -9,6 +9,15 @@
  *   same encoder settings (`greyscale().jpeg(RENDER_JPEG)`);
  * - render_ratio: their ratio (target ≤ 1.5);
  * - render_peak_rss_mb: peak resident memory of a fresh process doing one render (target < 1.5 GB).
+ * - render_ratio_small: the same ratio on a 0.25-megapixel photo (612 × 408, the same still life drawn at
+ *   that size with its grain; target ≤ 2), median of SMALL_RUNS pairs: there the fixed costs count (the
+ *   look's exposures at every node of the upsampling table, and before the small-image hash a table of
+ *   every colour to allocate and touch, 32 MB, against a pass of a quarter-million pixels);
+ *   render_ratio_small_known_look the same for a look rendered before (its table from the cache);
+ * - render_ratio_noise: the same ratio on the 24-megapixel still life with camera-like noise added
+ *   (NOISE_RUNS pairs; target ≤ 2): many more colours to meet, so the per-colour computation counts;
+ * - render_peak_ratio: peak memory of the 24-megapixel render over sharp's greyscale of the same file,
+ *   each in a fresh process (target ≤ 1.5), and render_peak_ratio_small the same on the small photo.
  * Also, for the record: the same against a single-band greyscale JPEG (`…_bw`), a render whose look
  * table is cached (as for a look rendered before), and 16-bit PNG output.
  * Medians of interleaved runs; ratios are medians of the ratio within each pair (the machine is shared).
@@ -31,6 +40,11 @@ import type { UpsampleTable } from '../shared/spectral/upsample-table';
 const WIDTH = 6000;
 const HEIGHT = 4000;
 const RUNS = 7;
+/** The small photo: 0.25 megapixel, 3 : 2 like the large one. */
+const SMALL_WIDTH = 612;
+const SMALL_HEIGHT = 408;
+const SMALL_RUNS = 21;
+const NOISE_RUNS = 3;
 const CHILD_FLAG = '--photo-bench-child';
 const WORK = path.join(os.tmpdir(), 'grisaille-photo-bench');
 
@@ -62,10 +76,10 @@ function render(file: string, format: 'jpeg' | 'png16', t: { upsample: UpsampleT
   });
 }
 
-async function image(): Promise<string> {
+async function image(width = WIDTH, height = HEIGHT): Promise<string> {
   fs.mkdirSync(WORK, { recursive: true });
-  const file = path.join(WORK, `still-life-${WIDTH}x${HEIGHT}.jpg`);
-  if (!fs.existsSync(file)) fs.writeFileSync(file, await demoSceneJpeg(DEMO_SCENES[1], WIDTH, HEIGHT));
+  const file = path.join(WORK, `still-life-${width}x${height}.jpg`);
+  if (!fs.existsSync(file)) fs.writeFileSync(file, await demoSceneJpeg(DEMO_SCENES[1], width, height));
   return file;
 }
 
@@ -76,19 +90,96 @@ const time = async (fn: () => Promise<unknown>) => {
   return performance.now() - t0;
 };
 
-/** Peak RSS (MB) of a fresh process that does `what` once. */
-function childPeak(what: 'render' | 'greyscale', file: string): number {
+/** Peak RSS (MB) of a fresh process that does `what` once, and how far above its resident set just before (the render's after its tables load). */
+function childPeak(what: 'render' | 'greyscale', file: string): { peakMb: number; addedMb: number } {
   const me = fileURLToPath(import.meta.url);
   const r = spawnSync(process.execPath, ['--import', 'tsx', me, CHILD_FLAG, what, file], { encoding: 'utf8', env: { ...process.env, NODE_ENV: 'production' } });
   const line = r.stdout.trim().split('\n').pop() ?? '';
   try {
-    return (JSON.parse(line) as { peakMb: number }).peakMb;
+    return JSON.parse(line) as { peakMb: number; addedMb: number };
   } catch {
     throw new Error(`bench child failed: ${r.stderr || r.stdout}`);
   }
 }
 
-export default async function run(record: (name: string, value: number, unit: string) => void): Promise<void> {
+type Record = (name: string, value: number, unit: string) => void;
+
+/**
+ * The 24-megapixel still life with camera-like noise, written once (a fixed seed: the same file every run):
+ * Gaussian, independent per channel (chroma noise, as a sensor's at high ISO gives), variance growing
+ * with the signal like shot noise on a read-noise floor, σ² = 9 + v / 4 in 8-bit codes (σ 3 to 8.6 codes).
+ */
+async function noisyImage(): Promise<string> {
+  const file = path.join(WORK, `still-life-noise-${WIDTH}x${HEIGHT}.jpg`);
+  if (fs.existsSync(file)) return file;
+  const { data, info } = await sharp(await image()).raw().toBuffer({ resolveWithObject: true });
+  let seed = 0x2545f491;
+  const uniform = () => {
+    seed ^= seed << 13;
+    seed ^= seed >>> 17;
+    seed ^= seed << 5;
+    return ((seed >>> 0) + 0.5) / 4294967296;
+  };
+  for (let i = 0; i < data.length; i++) {
+    // Box–Muller (one of the pair used)
+    const gauss = Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
+    const v = data[i] + gauss * Math.sqrt(9 + data[i] / 4);
+    data[i] = v < 0 ? 0 : v > 255 ? 255 : Math.round(v);
+  }
+  fs.writeFileSync(file, await sharp(data, { raw: { width: info.width, height: info.height, channels: info.channels } }).jpeg({ quality: 92 }).toBuffer());
+  return file;
+}
+
+/** The noisy 24-megapixel photo: render and sharp's greyscale in interleaved pairs. */
+export async function noise(record: Record): Promise<void> {
+  const file = await noisyImage();
+  const t = await tables();
+  const r: number[] = [];
+  const g: number[] = [];
+  for (let i = 0; i < NOISE_RUNS; i++) {
+    r.push(await time(() => render(file, 'jpeg', t)));
+    g.push(await time(() => sharp(file).greyscale().jpeg(RENDER_JPEG).toBuffer()));
+  }
+  record('render_noise_24mp_ms', median(r), 'ms');
+  record('greyscale_noise_24mp_ms', median(g), 'ms');
+  record('render_ratio_noise', median(r.map((x, i) => x / g[i])), 'x');
+}
+
+/** The small photo: render and sharp's greyscale in interleaved pairs, and each one's peak memory. */
+export async function small(record: Record): Promise<void> {
+  const file = await image(SMALL_WIDTH, SMALL_HEIGHT);
+  const t = await tables();
+  await render(file, 'jpeg', t); // warm-up
+  await sharp(file).greyscale().jpeg(RENDER_JPEG).toBuffer();
+  // a look rendered before: its table from the server's cache (render-jobs.ts), with the colours it met
+  const cached = await buildRenderTable(photoToneModel(composeLook(benchLook()), t.upsample), 8, 8);
+  const known = () => renderPhoto({ input: file, bitDepth: 8, hasProfile: false, format: 'jpeg', table: () => cached });
+  await known();
+  const r: number[] = [];
+  const k: number[] = [];
+  const g: number[] = [];
+  for (let i = 0; i < SMALL_RUNS; i++) {
+    r.push(await time(() => render(file, 'jpeg', t)));
+    k.push(await time(known));
+    g.push(await time(() => sharp(file).greyscale().jpeg(RENDER_JPEG).toBuffer()));
+  }
+  record('render_small_ms', median(r), 'ms');
+  record('greyscale_small_ms', median(g), 'ms');
+  record('render_ratio_small', median(r.map((x, i) => x / g[i])), 'x');
+  record('render_small_known_look_ms', median(k), 'ms');
+  record('render_ratio_small_known_look', median(k.map((x, i) => x / g[i])), 'x');
+  const peak = childPeak('render', file);
+  const greyPeak = childPeak('greyscale', file);
+  record('render_peak_rss_small_mb', peak.peakMb, 'MB');
+  record('greyscale_peak_rss_small_mb', greyPeak.peakMb, 'MB');
+  record('render_peak_ratio_small', peak.peakMb / greyPeak.peakMb, 'x');
+  // the process peaks hold what a server holds anyway (the upsampling table); above it, the render's own
+  record('render_added_rss_small_mb', peak.addedMb, 'MB');
+  record('greyscale_added_rss_small_mb', greyPeak.addedMb, 'MB');
+}
+
+export default async function run(record: Record): Promise<void> {
+  await small(record);
   const file = await image();
   const t = await tables();
   await render(file, 'jpeg', t); // warm-up
@@ -126,16 +217,27 @@ export default async function run(record: (name: string, value: number, unit: st
   record('render_png16_24mp_ms', median(r16), 'ms');
   record('greyscale_png16_24mp_ms', median(g16), 'ms');
   record('render_ratio_png16', median(r16.map((x, i) => x / g16[i])), 'x');
-  record('render_peak_rss_mb', childPeak('render', file), 'MB');
-  record('greyscale_peak_rss_mb', childPeak('greyscale', file), 'MB');
+  await noise(record);
+  const peak = childPeak('render', file);
+  const greyPeak = childPeak('greyscale', file);
+  record('render_peak_rss_mb', peak.peakMb, 'MB');
+  record('greyscale_peak_rss_mb', greyPeak.peakMb, 'MB');
+  record('render_peak_ratio', peak.peakMb / greyPeak.peakMb, 'x');
 }
 
 if (process.argv.includes(CHILD_FLAG)) {
   const [what, file] = process.argv.slice(process.argv.indexOf(CHILD_FLAG) + 1);
-  if (what === 'render') await render(file, 'jpeg', await tables());
+  const status = (field: 'VmHWM' | 'VmRSS') => {
+    const m = new RegExp(`${field}:\\s+(\\d+) kB`).exec(fs.readFileSync('/proc/self/status', 'utf8'));
+    if (m) return Number(m[1]) / 1024;
+    return field === 'VmHWM' ? process.resourceUsage().maxRSS / 1024 : process.memoryUsage().rss / 1048576;
+  };
+  const t = what === 'render' ? await tables() : null;
+  const before = status('VmRSS');
+  if (t) await render(file, 'jpeg', t);
   else await sharp(file).greyscale().jpeg(RENDER_JPEG).toBuffer();
   // VmHWM: this process image's peak resident set (getrusage's maxrss would include the parent's, inherited through fork and exec)
-  const hwm = /VmHWM:\s+(\d+) kB/.exec(fs.readFileSync('/proc/self/status', 'utf8'));
-  console.log(JSON.stringify({ peakMb: hwm ? Number(hwm[1]) / 1024 : process.resourceUsage().maxRSS / 1024 }));
+  const peakMb = status('VmHWM');
+  console.log(JSON.stringify({ peakMb, addedMb: peakMb - before }));
   process.exit(0);
 }

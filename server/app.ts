@@ -25,6 +25,7 @@ import { csrfCheck, csrfConfig } from './middleware/csrf';
 import { privateAnswers } from './middleware/private-answers';
 import { bodyIdleTimeout } from './middleware/body-timeout';
 import { errorHandler } from './middleware/error-handler';
+import { staticAssets } from './middleware/static-assets';
 import { AppError, NotFoundError } from './errors';
 import rateLimit from 'express-rate-limit';
 // ROUTER IMPORTS START
@@ -147,8 +148,13 @@ export async function createApp(opts: CreateAppOptions = {}): Promise<GrisailleA
 
   const dist = path.resolve('dist');
   if (opts.serveClient ?? fs.existsSync(path.join(dist, 'index.html'))) {
-    app.use(express.static(dist, { index: false, maxAge: '1h' }));
-    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(dist, 'index.html')));
+    // the build's brotli/gzip copies when the client accepts them; hashed assets cached for good, index.html revalidated
+    const client = staticAssets(dist);
+    app.use(client.files);
+    // a hashed file that is not (or no longer) in the build is a 404, not index.html: a browser holding an
+    // old page after a deploy must not run HTML as a script
+    app.get('/assets/{*splat}', (_req, res) => void res.status(404).type('text/plain').send('Not found.'));
+    app.get('/{*splat}', client.index);
   }
   app.use(errorHandler);
   if (env.nodeEnv !== 'test') void compute.warm(); // a server starts its compute threads now; tests start them on first use

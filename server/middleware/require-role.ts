@@ -1,6 +1,10 @@
 import type { Request, RequestHandler } from 'express';
 import type { AppContext } from '../context';
+import type { DataSource } from 'typeorm';
 import { Membership } from '../db/entities/membership.entity';
+import { Production } from '../db/entities/production.entity';
+import { User } from '../db/entities/user.entity';
+import { shallowCopy, tableCache, type TableCache } from '../services/cache';
 import { ForbiddenError, NotFoundError, UnauthenticatedError } from '../errors';
 import { logEvent } from '../services/log';
 import type { Role } from '../../shared/schemas/roles';
@@ -29,6 +33,32 @@ function logRefusal(req: Request, productionId: number, need: Role, role: Role |
   }, 'warn');
 }
 
+/** How many (production, user) memberships are kept, and for how long at most (writes empty it at once). */
+const MEMBERSHIPS_KEPT = 1000;
+const MEMBERSHIP_TTL_MS = 30_000;
+const membershipCaches = new WeakMap<DataSource, TableCache<string, Membership>>();
+
+/**
+ * The membership of a user in a production, with `production` and `user`, or null. Kept per app
+ * (services/cache.ts) and emptied by any write to memberships, productions or users, so a role changed, a
+ * member removed or a production deleted is seen by the very next request; each caller gets its own copy.
+ */
+export async function findMembership(ds: DataSource, productionId: number, userId: number): Promise<Membership | null> {
+  let cache = membershipCaches.get(ds);
+  if (!cache) membershipCaches.set(ds, (cache = tableCache<string, Membership>(ds, [Membership, Production, User], { max: MEMBERSHIPS_KEPT, ttlMs: MEMBERSHIP_TTL_MS })));
+  const m = await cache.get(`${productionId}:${userId}`, () =>
+    ds.getRepository(Membership).findOne({
+      where: { production: { id: productionId }, user: { id: userId } },
+      relations: { production: true, user: true },
+    }),
+  );
+  if (!m) return null;
+  const copy = shallowCopy(m);
+  copy.production = shallowCopy(m.production);
+  copy.user = shallowCopy(m.user);
+  return copy;
+}
+
 /**
  * The one role check for every production route (`/api/productions/:productionId/...`).
  * No session → 401; no such production, or not a member → 404 (a production's existence is not revealed);
@@ -44,10 +74,7 @@ export function requireRole(ctx: AppContext, need: Role): RequestHandler {
       const membership =
         req.membership && req.membership.production.id === productionId
           ? req.membership
-          : await ctx.ds.getRepository(Membership).findOne({
-              where: { production: { id: productionId }, user: { id: req.user.id } },
-              relations: { production: true, user: true },
-            });
+          : await findMembership(ctx.ds, productionId, req.user.id);
       if (!membership) {
         logRefusal(req, productionId, need, null);
         throw new NotFoundError('Production');

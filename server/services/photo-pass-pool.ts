@@ -3,12 +3,12 @@
  * JavaScript, so the main thread shares it with one worker: the worker takes the bottom half of the
  * pixels (with a look's lazily filled exact table, shared/photo/exact-lut.ts, or a 16-bit plan).
  * The worker runs the very same functions (passed as their source text, so it needs no TypeScript
- * loader: they refer to nothing outside their arguments); data reaches it through SharedArrayBuffers.
+ * loader: they refer to nothing outside their arguments and each other); data reaches it through SharedArrayBuffers.
  * Any failure (no worker, an error in it) answers false and the caller does the work itself.
  */
 import { Worker } from 'node:worker_threads';
 import { applyLut16, type GreyBuffer, type LutPlan16 } from '../../shared/photo/apply-lut';
-import { applyExactLut, type ExactLut } from '../../shared/photo/exact-lut';
+import { applyExactLut, exactCode, type ExactLut } from '../../shared/photo/exact-lut';
 
 /** Images smaller than this are rendered on one thread, pixels. */
 export const PARALLEL_MIN_PIXELS = 2_000_000;
@@ -19,6 +19,7 @@ const WORKER_SOURCE = `
 const { parentPort } = require('node:worker_threads');
 // the TypeScript loader may wrap inner functions as __name(fn, "name"); the worker runs plain JS
 const __name = (f) => f;
+const exactCode = ${exactCode.toString()};
 const applyExactLut = ${applyExactLut.toString()};
 const applyLut16 = ${applyLut16.toString()};
 const typed = { u8: Uint8Array, u16: Uint16Array, u32: Uint32Array, i32: Int32Array, f32: Float32Array, f64: Float64Array };

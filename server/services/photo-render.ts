@@ -7,11 +7,13 @@
  * computation (only the colours the photo holds are computed: shared/photo/exact-lut.ts), a pixel then
  * costing one read once its colour was met; for 16-bit photos the 65³ table's trilinear plan
  * (shared/photo/apply-lut.ts). On large images a worker thread takes the bottom half of the pass
- * (photo-pass-pool.ts).
+ * (photo-pass-pool.ts). Small 8-bit photos (under SMALL_IMAGE_PIXELS) skip the 2²⁴ table: the same
+ * per-colour computation, its results kept in a sparse table of the colours met (exact-lut.ts
+ * applyExactSparse), since allocating and touching 32–64 MB costs more than their whole pass.
  */
 import sharp, { type JpegOptions, type PngOptions } from 'sharp';
 import { applyLut16, planLut16, type LutPlan16, type OutputBits } from '../../shared/photo/apply-lut';
-import { applyExactLut, exactLut, type ExactLut } from '../../shared/photo/exact-lut';
+import { applyExactLut, applyExactSparse, exactColours, sparseColours, type ExactColours, type ExactLut, type SparseColours } from '../../shared/photo/exact-lut';
 import { buildPhotoLut, type PhotoToneModel } from '../../shared/photo/look-photo-model';
 import { RENDER_LUT_SIZE } from '../../shared/photo/exposure-lut';
 import type { RenderFormat } from '../../shared/schemas/photo';
@@ -26,17 +28,39 @@ export const RENDER_PNG: PngOptions = { compressionLevel: 6 };
 /** Pixels per chunk of the pass; the event loop runs between chunks. */
 export const RENDER_CHUNK_PIXELS = 1 << 21;
 
-/** A look's table as the renderer applies it. */
-export type RenderTable = { kind: 'exact8'; lut: ExactLut } | { kind: 'plan16'; plan: LutPlan16 };
+/**
+ * 8-bit photos with fewer pixels than this render through a sparse table of their colours instead of
+ * the full 2²⁴ one (unless the look's full table was already allocated by an earlier, larger render): on
+ * a small photo, allocating and touching the full table costs more than the pass. Equal to the
+ * two-thread threshold, so a sparse pass never needs sharing with the worker.
+ */
+export const SMALL_IMAGE_PIXELS = PARALLEL_MIN_PIXELS;
 
 /**
- * Builds the render table of a look for an input and output depth: for 8-bit input an empty lazy exact
- * table (32 MB at 8-bit output, 64 MB at 16-bit, in shared memory; a cached table keeps the colours
- * earlier renders filled in); for 16-bit input the 65³ table and its plan.
+ * A look's table as the renderer applies it. For 8-bit input, `lut` (the lazy exact table) is allocated
+ * by the first render large enough to need it and then kept with the table (and with its colours); until
+ * then small renders keep the colours they met in `sparse` (so a look rendered before finds them again;
+ * it never outgrows the full table).
+ */
+export type RenderTable = { kind: 'exact8'; colours: ExactColours; bits: OutputBits; lut: ExactLut | null; sparse: SparseColours | null } | { kind: 'plan16'; plan: LutPlan16 };
+type Exact8Table = Extract<RenderTable, { kind: 'exact8' }>;
+
+/**
+ * Builds the render table of a look for an input and output depth: for 8-bit input the per-colour
+ * computation, its lazy exact table allocated later, when a large image needs it (32 MB at 8-bit output,
+ * 64 MB at 16-bit, in shared memory; a cached table keeps the colours earlier renders filled in); for
+ * 16-bit input the 65³ table and its plan.
  */
 export async function buildRenderTable(model: PhotoToneModel, inputBits: 8 | 16, outputBits: OutputBits): Promise<RenderTable> {
-  if (inputBits === 8) return { kind: 'exact8', lut: exactLut(passPool.allocLazy(outputBits), model, outputBits) };
+  if (inputBits === 8) return { kind: 'exact8', colours: exactColours(model, outputBits), bits: outputBits, lut: null, sparse: null };
   return { kind: 'plan16', plan: planLut16(buildPhotoLut(model, RENDER_LUT_SIZE), model.tone, outputBits) };
+}
+
+/** The lazy exact table of an 8-bit render table, allocated (zeroed, pages touched) on first need. */
+function lazyTable(table: Exact8Table): ExactLut {
+  table.lut ??= { codes: passPool.allocLazy(table.bits), ...table.colours };
+  table.sparse = null; // small renders use the full table from now on
+  return table.lut;
 }
 
 export interface RenderProgress {
@@ -94,6 +118,12 @@ function greyBuffer(n: number, bits: OutputBits): Uint8Array | Uint16Array {
   return grey;
 }
 
+/** The pass of a small 8-bit image: its colours kept in the look's sparse table (exact-lut.ts applyExactSparse). */
+function sparseStep(table: Exact8Table, src: ArrayLike<number>, grey: Uint8Array | Uint16Array) {
+  const sparse = (table.sparse ??= sparseColours(table.bits));
+  return (from: number, to: number) => applyExactSparse(table.colours, sparse, src, 3, grey, from, to);
+}
+
 /** The grey codes of a photo through a look, before encoding. */
 export interface GreyResult {
   grey: Uint8Array | Uint16Array;
@@ -115,6 +145,8 @@ export async function renderGrey(req: Omit<RenderRequest, 'format'>, outBits: Ou
   const table = await req.table(req.bitDepth, outBits);
   const meta = await header;
   const early = meta?.width && meta.height ? greyBuffer(meta.width * meta.height, outBits) : null;
+  // a large 8-bit photo's table is allocated and touched while the image decodes
+  if (table.kind === 'exact8' && early && early.length >= SMALL_IMAGE_PIXELS) lazyTable(table);
   const tableMs = performance.now() - t0;
   report({ stage: 'decoding', progress: 0.25 });
   const { data, info, at: decodedAt } = await decoding;
@@ -128,15 +160,21 @@ export async function renderGrey(req: Omit<RenderRequest, 'format'>, outBits: Ou
         : new Uint16Array(Uint8Array.from(data).buffer)
       : data;
   if ((req.bitDepth === 16) !== (table.kind === 'plan16')) throw new Error('the table does not fit the input depth');
-  const parallel = n >= PARALLEL_MIN_PIXELS;
   const grey = early && early.length === n ? early : greyBuffer(n, outBits);
+  // 8-bit: the full table if the look has one already or the image is large, else the sparse one
+  const lut = table.kind === 'exact8' && (table.lut || n >= SMALL_IMAGE_PIXELS) ? lazyTable(table) : null;
+  const job = table.kind === 'plan16' ? { plan: table.plan } : lut ? { lut } : null;
+  let step: (from: number, to: number) => void;
+  if (table.kind === 'plan16') step = (from, to) => applyLut16(table.plan, src, 3, grey, from, to);
+  else if (lut) step = (from, to) => applyExactLut(lut, src, 3, grey, from, to);
+  else step = sparseStep(table, src, grey);
+  const parallel = n >= PARALLEL_MIN_PIXELS && job !== null;
   const split = parallel ? Math.floor(n / 2) : n;
-  const other = parallel ? passPool.pass(table.kind === 'exact8' ? { lut: table.lut } : { plan: table.plan }, req.bitDepth, src, grey, split, n) : Promise.resolve(true);
+  const other = parallel ? passPool.pass(job, req.bitDepth, src, grey, split, n) : Promise.resolve(true);
   const pass = async (start: number, end: number, share: number) => {
     for (let from = start; from < end; from += RENDER_CHUNK_PIXELS) {
       const to = Math.min(end, from + RENDER_CHUNK_PIXELS);
-      if (table.kind === 'exact8') applyExactLut(table.lut, src, 3, grey, from, to);
-      else applyLut16(table.plan, src, 3, grey, from, to);
+      step(from, to);
       report({ stage: 'rendering', progress: 0.3 + 0.3 * share * ((to - start) / (end - start)) });
       if (to < end) await yieldToLoop();
     }

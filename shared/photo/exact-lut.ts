@@ -10,9 +10,13 @@
  * computed (the 24-megapixel benchmark still life holds about 40,000 of 16.8 million).
  * Entries carry a flag bit above the code (bit 8 for 8-bit output, bit 16 for 16-bit); 0 = not yet.
  * Two threads may fill it at once (shared memory): both write the same value, so a race is harmless.
- * `applyExactLut` refers to nothing outside its arguments (the server also runs it in a worker), so
- * the cell location of shared/spectral/upsample-table.ts `locateCell` and `interpolateAtCell` is
- * written out in it; tests/unit/photo/exact-lut.test.ts checks it against those functions.
+ * `applyExactLut` refers to nothing outside its arguments but `exactCode` (the server also runs both in
+ * a worker, from their source text), so the cell location of shared/spectral/upsample-table.ts
+ * `locateCell` and `interpolateAtCell` is written out in `exactCode`; tests/unit/photo/exact-lut.test.ts
+ * checks it against those functions.
+ * Small images skip the table: `applyExactSparse` keeps the colours met in a sparse table of 4³-colour
+ * blocks (the same `exactCode` for each), since allocating and touching 32–64 MB costs more than their
+ * whole pass.
  */
 import { FLOOR_STOPS, MIDDLE_GREY } from '../spectral/limits';
 import { srgbDecode } from '../tone/print';
@@ -41,13 +45,20 @@ export interface ExactLut {
   middleGrey: number;
 }
 
+/** What the computation of one colour needs (a lazy table without its 2²⁴ entries). */
+export type ExactColours = Omit<ExactLut, 'codes'>;
+
 /** A lazy exact table for a look and output depth (`codes`: 2²⁴ zeroed entries from the caller, e.g. in shared memory). */
 export function exactLut(codes: Uint16Array | Uint32Array, model: PhotoToneModel, bits: OutputBits): ExactLut {
   if (codes.length !== 1 << 24) throw new Error('exactLut: codes must hold 2^24 entries');
+  return { codes, ...exactColours(model, bits) };
+}
+
+/** The per-colour computation of a look and output depth, without a table (small images: applyExactSparse). */
+export function exactColours(model: PhotoToneModel, bits: OutputBits): ExactColours {
   const lin = new Float64Array(256);
   for (let c = 0; c < 256; c++) lin[c] = srgbDecode(c / 255);
   return {
-    codes,
     flag: bits === 8 ? 256 : 65536,
     lin,
     resolution: model.upsample.resolution,
@@ -62,64 +73,73 @@ export function exactLut(codes: Uint16Array | Uint32Array, model: PhotoToneModel
   };
 }
 
+/**
+ * The flagged code (flag | output code) of one colour, key r << 16 | g << 8 | b, computed as
+ * look-photo-model.ts pixelStops does: shared by the full table (applyExactLut) and the sparse one
+ * (applyExactSparse), so both give the same code for a colour. Refers to nothing outside its arguments.
+ */
+export function exactCode(t: ExactColours, key: number): number {
+  const { lin, resolution: R, zNodes: zn, nodeM: vals } = t;
+  const r = lin[key >> 16];
+  const g = lin[(key >> 8) & 255];
+  const b = lin[key & 255];
+  let l: number;
+  let z: number;
+  let u: number;
+  let v: number;
+  if (r >= g && r >= b) {
+    l = 0;
+    z = r;
+    u = g;
+    v = b;
+  } else if (g >= b) {
+    l = 1;
+    z = g;
+    u = b;
+    v = r;
+  } else {
+    l = 2;
+    z = b;
+    u = r;
+    v = g;
+  }
+  const x = z > 0 ? u / z : 0;
+  const y = z > 0 ? v / z : 0;
+  let lo = 0;
+  let hi = R - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (zn[mid] <= z) lo = mid;
+    else hi = mid;
+  }
+  const zi = Math.min(lo, R - 2);
+  const xs = x * (R - 1);
+  const ys = y * (R - 1);
+  const xi = Math.min(Math.floor(xs), R - 2);
+  const yi = Math.min(Math.floor(ys), R - 2);
+  const fx = xs - xi;
+  const fy = ys - yi;
+  const fz = Math.min(1, Math.max(0, (z - zn[zi]) / (zn[zi + 1] - zn[zi])));
+  const p = ((l * R + zi) * R + yi) * R + xi;
+  const sy = R;
+  const sz = R * R;
+  const c00 = vals[p] * (1 - fx) + vals[p + 1] * fx;
+  const c01 = vals[p + sy] * (1 - fx) + vals[p + sy + 1] * fx;
+  const c10 = vals[p + sz] * (1 - fx) + vals[p + sz + 1] * fx;
+  const c11 = vals[p + sz + sy] * (1 - fx) + vals[p + sz + sy + 1] * fx;
+  const m = (c00 * (1 - fy) + c01 * fy) * (1 - fz) + (c10 * (1 - fy) + c11 * fy) * fz;
+  const stops = m > 0 ? Math.max(t.floorStops, Math.log2(m / t.middleGrey)) : t.floorStops;
+  const qv = ((stops - t.minStops) * t.q + 0.5) | 0;
+  return t.flag | t.out[qv < 0 ? 0 : qv > t.maxQ ? t.maxQ : qv];
+}
+
 /** Renders pixels [from, to) of 8-bit interleaved RGB(A) `src` (alpha ignored) into `dst`, one grey code a pixel, filling the table on the way. */
 export function applyExactLut(t: ExactLut, src: ArrayLike<number>, channels: number, dst: GreyBuffer, from: number, to: number): void {
   const codes = t.codes;
   const mask = t.flag - 1;
-  // one colour, computed as look-photo-model.ts pixelStops does (kept out of the hot loop)
+  // one colour, computed by exactCode (kept out of the hot loop)
   const miss = (key: number): number => {
-    const { lin, resolution: R, zNodes: zn, nodeM: vals } = t;
-    const r = lin[key >> 16];
-    const g = lin[(key >> 8) & 255];
-    const b = lin[key & 255];
-    let l: number;
-    let z: number;
-    let u: number;
-    let v: number;
-    if (r >= g && r >= b) {
-      l = 0;
-      z = r;
-      u = g;
-      v = b;
-    } else if (g >= b) {
-      l = 1;
-      z = g;
-      u = b;
-      v = r;
-    } else {
-      l = 2;
-      z = b;
-      u = r;
-      v = g;
-    }
-    const x = z > 0 ? u / z : 0;
-    const y = z > 0 ? v / z : 0;
-    let lo = 0;
-    let hi = R - 1;
-    while (hi - lo > 1) {
-      const mid = (lo + hi) >> 1;
-      if (zn[mid] <= z) lo = mid;
-      else hi = mid;
-    }
-    const zi = Math.min(lo, R - 2);
-    const xs = x * (R - 1);
-    const ys = y * (R - 1);
-    const xi = Math.min(Math.floor(xs), R - 2);
-    const yi = Math.min(Math.floor(ys), R - 2);
-    const fx = xs - xi;
-    const fy = ys - yi;
-    const fz = Math.min(1, Math.max(0, (z - zn[zi]) / (zn[zi + 1] - zn[zi])));
-    const p = ((l * R + zi) * R + yi) * R + xi;
-    const sy = R;
-    const sz = R * R;
-    const c00 = vals[p] * (1 - fx) + vals[p + 1] * fx;
-    const c01 = vals[p + sy] * (1 - fx) + vals[p + sy + 1] * fx;
-    const c10 = vals[p + sz] * (1 - fx) + vals[p + sz + 1] * fx;
-    const c11 = vals[p + sz + sy] * (1 - fx) + vals[p + sz + sy + 1] * fx;
-    const m = (c00 * (1 - fy) + c01 * fy) * (1 - fz) + (c10 * (1 - fy) + c11 * fy) * fz;
-    const stops = m > 0 ? Math.max(t.floorStops, Math.log2(m / t.middleGrey)) : t.floorStops;
-    const qv = ((stops - t.minStops) * t.q + 0.5) | 0;
-    const c = t.flag | t.out[qv < 0 ? 0 : qv > t.maxQ ? t.maxQ : qv];
+    const c = exactCode(t, key);
     codes[key] = c;
     return c;
   };
@@ -151,5 +171,71 @@ export function applyExactLut(t: ExactLut, src: ArrayLike<number>, channels: num
     const key = (src[i] << 16) | (src[i + 1] << 8) | src[i + 2];
     const c = codes[key];
     dst[j] = (c === 0 ? miss(key) : c) & mask;
+  }
+}
+
+/**
+ * The colours met by small renders, in a two-level sparse table: the cube cut into 2¹⁸ blocks of
+ * 4 × 4 × 4 colours, `index` giving each block's start in `codes` (0 = no colour of it met yet), blocks
+ * handed out as their first colour is met, each entry flag | code as in the full table (0 = not yet).
+ * A photo's colours cluster, so they fill few blocks (the 0.25-megapixel bench photo: 16,000 colours in
+ * 4,600 blocks, 0.6 MB) where the 2²⁴ table is 32 or 64 MB to allocate and touch; neighbouring pixels
+ * mostly share a block, so a pixel costs two reads about as cheap as the table's one (measured). It
+ * never holds more than the full table would (2¹⁸ blocks × 64 = 2²⁴ entries).
+ */
+export interface SparseColours {
+  /** per block (r >> 2, g >> 2, b >> 2): its first entry in `codes`, 0 = none yet */
+  index: Int32Array;
+  /** the blocks' entries (Uint16 for 8-bit output, Uint32 for 16-bit; the first block unused) */
+  codes: Uint16Array | Uint32Array;
+  /** entries handed out (the first block included) */
+  used: number;
+}
+
+/** Entries a sparse table starts with (1,024 blocks); it doubles when full. */
+const SPARSE_START_ENTRIES = 1 << 16;
+
+/** An empty sparse table of colours for `bits` of output. */
+export function sparseColours(bits: OutputBits): SparseColours {
+  return { index: new Int32Array(1 << 18), codes: bits === 8 ? new Uint16Array(SPARSE_START_ENTRIES) : new Uint32Array(SPARSE_START_ENTRIES), used: 64 };
+}
+
+/** A new block's first entry in `s.codes`, the entries doubled first if full. */
+function newBlock(s: SparseColours): number {
+  if (s.used + 64 > s.codes.length) {
+    const more = s.codes instanceof Uint16Array ? new Uint16Array(s.codes.length * 2) : new Uint32Array(s.codes.length * 2);
+    more.set(s.codes);
+    s.codes = more;
+  }
+  const base = s.used;
+  s.used += 64;
+  return base;
+}
+
+/**
+ * Renders pixels [from, to) as applyExactLut does (the same code for every colour: both call exactCode),
+ * keeping the colours met in a sparse table (`s`) instead of the full 2²⁴ one: for small images, where
+ * allocating and touching the full table costs more than the pass. Main thread only (small images are
+ * not split between threads).
+ */
+export function applyExactSparse(t: ExactColours, s: SparseColours, src: ArrayLike<number>, channels: number, dst: GreyBuffer, from: number, to: number): void {
+  const mask = t.flag - 1;
+  const index = s.index;
+  let codes = s.codes;
+  for (let j = from, i = from * channels; j < to; j++, i += channels) {
+    const r = src[i];
+    const g = src[i + 1];
+    const b = src[i + 2];
+    const block = ((r >> 2) << 12) | ((g >> 2) << 6) | (b >> 2);
+    let base = index[block];
+    if (base === 0) {
+      base = newBlock(s);
+      codes = s.codes;
+      index[block] = base;
+    }
+    const o = base + (((r & 3) << 4) | ((g & 3) << 2) | (b & 3));
+    let c = codes[o];
+    if (c === 0) c = codes[o] = exactCode(t, (r << 16) | (g << 8) | b);
+    dst[j] = c & mask;
   }
 }

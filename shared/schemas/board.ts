@@ -102,20 +102,32 @@ export interface ToneRange {
   plausible: [number, number];
 }
 
-/** Two swatches that read as one grey on the medium though they differ to the eye. */
-export interface Merge {
-  a: number;
-  b: number;
-  /** |stops a − stops b| on the medium */
-  stopsApart: number;
+/** A swatch this one merges with through a look: reads as the same grey on the medium, differs to the eye. */
+export interface MergePartner {
+  swatchId: number;
+  /**
+   * true: the plausible ranges of both lie within the threshold of each other entirely (they merge whatever
+   * their spectra); false: some plausible spectra would merge them (measure to be sure)
+   */
+  certain: boolean;
   /** CIEDE2000 to the eye */
   deltaE: number;
-  /**
-   * `certain`: the plausible ranges of both lie within the threshold of each other entirely (they merge
-   * whatever their spectra); `possible`: some plausible spectra would merge them (measure to be sure)
-   */
-  certainty: 'certain' | 'possible';
 }
+
+/**
+ * One swatch's merges through one look. `count` is every swatch it merges with (`certainCount` of them
+ * certainly); `partners` holds at most MERGE_PARTNERS_KEPT of them, certain ones first, then the nearest on
+ * the medium. How far apart on the medium: |stops| of the two tones.
+ */
+export interface SwatchMerges {
+  swatchId: number;
+  count: number;
+  certainCount: number;
+  partners: MergePartner[];
+}
+
+/** Partners listed per swatch and look (the counts are complete). */
+export const MERGE_PARTNERS_KEPT = 4;
 
 export interface LookTones {
   lookId: number;
@@ -124,7 +136,11 @@ export interface LookTones {
   /** true when the grey comes from the look's tone pipeline (curve + print), false for a plain display mapping */
   tonePipeline: boolean;
   tones: SwatchTone[];
-  merges: Merge[];
+  /** per swatch that merges with any other through this look (in the order of `tones`): see SwatchMerges */
+  merges: SwatchMerges[];
+  /** pairs of swatches that merge through this look, and how many of them certainly */
+  mergeCount: number;
+  certainMergeCount: number;
 }
 
 export interface BoardTones {

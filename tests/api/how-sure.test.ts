@@ -133,18 +133,21 @@ describe('board, swatch and sheet tones carry ranges', () => {
     for (const b of boards) {
       const tones = (await lab.get(`${base}/boards/${b.id}/tones?mergeStops=0.5`)).body.tones as BoardTones;
       for (const l of tones.looks) {
-        for (const m of l.merges) {
-          const [x, y] = [m.a, m.b].map((id) => l.tones.find((s) => s.swatchId === id)!);
-          const lo = Math.min(x.range.plausible[0], y.range.plausible[0]);
-          const hi = Math.max(x.range.plausible[1], y.range.plausible[1]);
-          const gap = Math.max(x.range.plausible[0], y.range.plausible[0]) - Math.min(x.range.plausible[1], y.range.plausible[1]);
-          expect(gap).toBeLessThanOrEqual(0.5 + TOL);
-          expect(m.certainty).toBe(hi - lo <= 0.5 + TOL ? 'certain' : 'possible');
-          seen.add(m.certainty);
+        for (const sm of l.merges) {
+          for (const m of sm.partners) {
+            const [x, y] = [sm.swatchId, m.swatchId].map((id) => l.tones.find((s) => s.swatchId === id)!);
+            const lo = Math.min(x.range.plausible[0], y.range.plausible[0]);
+            const hi = Math.max(x.range.plausible[1], y.range.plausible[1]);
+            const gap = Math.max(x.range.plausible[0], y.range.plausible[0]) - Math.min(x.range.plausible[1], y.range.plausible[1]);
+            expect(gap).toBeLessThanOrEqual(0.5 + TOL);
+            const certainty = m.certain ? 'certain' : 'possible';
+            expect(certainty).toBe(hi - lo <= 0.5 + TOL ? 'certain' : 'possible');
+            seen.add(certainty);
+          }
+          // certain merges come first
+          const order = sm.partners.map((m) => m.certain);
+          expect(order).toEqual([...order].sort((p, q) => Number(q) - Number(p)));
         }
-        // certain merges come first
-        const order = l.merges.map((m) => m.certainty);
-        expect(order).toEqual([...order].sort((p, q) => Number(q === 'certain') - Number(p === 'certain')));
       }
     }
     expect(seen.has('possible')).toBe(true);

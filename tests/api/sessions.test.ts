@@ -5,7 +5,7 @@
  */
 import crypto from 'node:crypto';
 import type { AddressInfo } from 'node:net';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import request from 'supertest';
 import { startTestApp, withTestApp, type Agent, type TestApp } from '../helpers/api';
 import { SessionRow } from '../../server/db/entities/session.entity';
@@ -173,10 +173,20 @@ describe('lifetime', () => {
     // two minutes on: the next request moves it
     const earlier = Number(first.expiresAt) - 120_000;
     await rows().update({ sid: key }, { expiresAt: earlier, lastSeenAt: Date.now() - 120_000 });
-    await a.get('/api/productions');
+    // and the server's clock two minutes on too (the store also remembers its own last touch in memory)
+    vi.useFakeTimers({ toFake: ['Date'], now: Date.now() + 120_000 });
+    try {
+      await a.get('/api/productions');
+    } finally {
+      vi.useRealTimers();
+    }
     const moved = await rows().findOneByOrFail({ sid: key });
     expect(Number(moved.expiresAt)).toBeGreaterThan(earlier + 100_000);
     expect(Number(moved.lastSeenAt)).toBeGreaterThan(Date.now() - 10_000);
+    // a second request within the minute writes nothing, not even through the conditional update
+    await rows().update({ sid: key }, { lastSeenAt: 1 });
+    await a.get('/api/productions');
+    expect(Number((await rows().findOneByOrFail({ sid: key })).lastSeenAt)).toBe(1);
   });
 });
 

@@ -32,6 +32,8 @@ export interface SessionStoreOptions {
 }
 
 const DAY_MS = 24 * 3600 * 1000;
+/** sessions whose last touch is remembered before the memory is cleared (a bound, not a cache policy) */
+const TOUCHED_KEPT = 10_000;
 
 /**
  * express-session store over the app's own SQLite database through TypeORM (no second driver, no timer
@@ -45,6 +47,8 @@ const DAY_MS = 24 * 3600 * 1000;
  */
 export class TypeormSessionStore extends session.Store {
   private writes = 0;
+  /** when this process last touched each session (by key): a second touch within touchEveryMs skips the database */
+  private readonly touched = new Map<string, number>();
   readonly idleTtlMs: number;
   readonly maxAgeMs: number;
   readonly touchEveryMs: number;
@@ -120,9 +124,15 @@ export class TypeormSessionStore extends session.Store {
    * UPDATE that changes nothing on most requests, instead of a write per GET.
    */
   override touch(sid: string, sess: session.SessionData, cb?: (err?: unknown) => void): void {
+    const key = sessionKey(sid);
+    const now = Date.now();
+    // this process touched it less than touchEveryMs ago: not even the conditional UPDATE is needed
+    if (now - (this.touched.get(key) ?? -Infinity) < this.touchEveryMs) return void cb?.();
+    if (this.touched.size >= TOUCHED_KEPT) this.touched.clear();
+    this.touched.set(key, now);
     const expiresAt = this.expiry(sess);
     this.repo()
-      .update({ sid: sessionKey(sid), expiresAt: LessThan(expiresAt - this.touchEveryMs) }, { expiresAt, lastSeenAt: Date.now() })
+      .update({ sid: key, expiresAt: LessThan(expiresAt - this.touchEveryMs) }, { expiresAt, lastSeenAt: now })
       .then(() => cb?.(), (e) => cb?.(e));
   }
 

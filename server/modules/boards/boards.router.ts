@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type Response } from 'express';
 import type { AppContext } from '../../context';
 import { validate } from '../../middleware/validate';
 import { handle, productionRoute, pid, idParam, itemRoutes } from '../route-registry';
@@ -6,6 +6,15 @@ import { boardCreateSchema, boardTonesQuerySchema, boardUpdateSchema } from '../
 import { BoardsService } from './boards.service';
 import { ToneService } from '../tones/tone.service';
 import { zodToInvalid } from '../../middleware/validate';
+
+/**
+ * JSON sent as res.json would, but without Express's ETag: that hashes the whole body (megabytes for a large
+ * board) on every request, and a board's tones carry their compute time, so two answers never share a tag and
+ * a 304 never comes. The tones are computed per request either way.
+ */
+function sendWithoutEtag(res: Response, body: unknown): void {
+  res.type('application/json').end(JSON.stringify(body));
+}
 
 /** Boards: viewers read; contributors create and edit their own department's; editors and owners any. */
 export function boardsRouter(ctx: AppContext): Router {
@@ -20,7 +29,7 @@ export function boardsRouter(ctx: AppContext): Router {
   productionRoute(r, ctx, 'get', '/boards/:boardId/tones', 'viewer', handle(async (req, res) => {
     const q = boardTonesQuerySchema.safeParse(req.query);
     if (!q.success) throw zodToInvalid(q.error);
-    res.json({ tones: await tones.boardTones(pid(req), idParam(req.params.boardId, 'Board'), q.data) });
+    sendWithoutEtag(res, { tones: await tones.boardTones(pid(req), idParam(req.params.boardId, 'Board'), q.data) });
   }));
   itemRoutes(r, ctx, { plural: 'boards', param: 'boardId', key: 'board', what: 'Board', read: 'viewer', write: 'contributor', updateSchema: boardUpdateSchema }, svc);
   return r;

@@ -11,6 +11,8 @@ import type { UpsampleTable } from '../../../shared/spectral/upsample-table';
 import { getUpsampleTable } from '../../services/upsample-table';
 import { computePoolFor } from '../../services/compute-pool';
 import { composeLook } from '../../../shared/look/compose-look';
+import type { Curve } from '../../db/entities/curve.entity';
+import { LruCache } from '../../services/cache';
 import { loadCurves, lookSpectra, refsOfLook, resolveLook } from './look-resolve';
 import { swatchSpectrum } from './swatch-spectra';
 import { lookTones, type ToneLook, type ToneSwatch } from './board-tones';
@@ -24,6 +26,53 @@ export function lookDefinition(l: Look): LookInput {
   return { id: l.id, name: l.name, light: l.light, filters: l.filters, medium: l.medium, tone: toneSettingsSchema.parse(l.tone ?? {}) };
 }
 
+/** Composed looks kept (a few productions' looks; each holds its light path and tone tables). */
+const PIPELINES_KEPT = 200;
+const pipelines = new LruCache<string, Pick<ToneLook, 'resolved' | 'composed'>>(PIPELINES_KEPT);
+const tableIds = new WeakMap<UpsampleTable, number>();
+let nextTableId = 1;
+
+/** A number per upsample table object (one per data directory), for the key. */
+function tableId(table: UpsampleTable): number {
+  let id = tableIds.get(table);
+  if (id === undefined) tableIds.set(table, (id = nextTableId++));
+  return id;
+}
+
+/**
+ * What a look's composition depends on, as one string: its stored definition (light, filters, medium,
+ * tone settings), every production curve it names (kind, name, source and samples, or its absence, which
+ * is an error), its key swatch as stored (colour, reflectance, origin) and the upsample table. The content
+ * rather than `updatedAt`: SQLite's timestamps here are to the second, so two edits within one second
+ * would share a key.
+ */
+function pipelineKey(l: LookInput, curves: Map<number, Curve>, key: Swatch | undefined, table: UpsampleTable): string {
+  const curveParts = refsOfLook(l).map((r) => {
+    if (r.curveId === undefined) return null;
+    const c = curves.get(r.curveId);
+    return c ? [c.id, c.kind, c.name, c.source, c.samples] : [r.curveId];
+  });
+  const keyPart = key ? [key.id, key.hex, key.reflectance, key.origin ?? null] : null;
+  return JSON.stringify([l.light, l.filters, l.medium, l.tone, curveParts, keyPart, tableId(table)]);
+}
+
+/**
+ * A look resolved and composed (shared/look/compose-look.ts), kept by what it depends on (`pipelineKey`),
+ * so a look that has not changed is not composed again per request. Engine values are immutable, so the
+ * kept ones are shared.
+ */
+function composedLook(l: LookInput, curves: Map<number, Curve>, key: Swatch | undefined, table: UpsampleTable): Pick<ToneLook, 'resolved' | 'composed'> {
+  const k = pipelineKey(l, curves, key, table);
+  let p = pipelines.get(k);
+  if (!p) {
+    const resolved = resolveLook(l, curves);
+    const spectra = lookSpectra(resolved, l.tone, key ? swatchSpectrum(key, table).reflectance : null);
+    p = { resolved, composed: composeLook(spectra, resolved) };
+    pipelines.set(k, p);
+  }
+  return p;
+}
+
 /** Resolves looks (curves, key swatches) for tone computation, in one pass over the database. */
 export async function prepareToneLooks(em: EntityManager, productionId: number, looks: LookInput[], table: UpsampleTable): Promise<ToneLook[]> {
   const curves = await loadCurves(em, productionId, looks.flatMap(refsOfLook));
@@ -32,9 +81,7 @@ export async function prepareToneLooks(em: EntityManager, productionId: number, 
   const keyById = new Map(keys.map((k) => [k.id, k]));
   return looks.map((l) => {
     const key = l.tone.keySwatchId !== null ? keyById.get(l.tone.keySwatchId) : undefined;
-    const resolved = resolveLook(l, curves);
-    const spectra = lookSpectra(resolved, l.tone, key ? swatchSpectrum(key, table).reflectance : null);
-    return { id: l.id, name: l.name, resolved, composed: composeLook(spectra, resolved) };
+    return { id: l.id, name: l.name, ...composedLook(l, curves, key, table) };
   });
 }
 

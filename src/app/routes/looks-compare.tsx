@@ -15,6 +15,7 @@ import { useSwatches } from '../../features/swatches/api/get-swatches';
 import { SplitChip } from '../../components/ui/split-chip';
 import { MAX_COMPARE_LOOKS } from '../../../shared/schemas/look';
 import { paths } from '../../lib/paths';
+import { mergeNames, mergesById } from '../../lib/merge-names';
 
 export default function LooksComparePage() {
   const pid = Number(useParams().productionId);
@@ -75,7 +76,8 @@ export default function LooksComparePage() {
           const look = looks.data?.looks.find((l) => l.id === id);
           const a = analyses[i]?.data?.analysis;
           const t = tones.data?.tones.looks.find((x) => x.lookId === id);
-          const names = (sid: number, certain = true) => (t?.merges ?? []).filter((m) => (m.a === sid || m.b === sid) && (m.certainty === 'certain') === certain).map((m) => swatchById.get(m.a === sid ? m.b : m.a)?.name ?? '');
+          const merges = mergesById(t);
+          const nameOf = (sid: number) => swatchById.get(sid)?.name ?? '';
           return (
             <Card key={id} className="min-w-0">
               <h2 className="mb-1"><Link to={paths.production(pid).bench(id)} className="hover:text-accent">{look?.name ?? `Look ${id}`}</Link></h2>
@@ -92,7 +94,7 @@ export default function LooksComparePage() {
                   {rowOrder.map((sid) => {
                     const tone = t.tones.find((x) => x.swatchId === sid);
                     const s = swatchById.get(sid);
-                    return s && tone ? <SplitChip key={tone.swatchId} name={s.name} hex={s.hex} tone={tone} mergesWith={names(tone.swatchId)} mayMergeWith={names(tone.swatchId, false)} size="sm" /> : null;
+                    return s && tone ? <SplitChip key={tone.swatchId} name={s.name} hex={s.hex} tone={tone} {...mergeNames(merges.get(tone.swatchId), nameOf)} size="sm" /> : null;
                   })}
                 </div>
               )}

@@ -11,18 +11,24 @@ interface Props {
   mergesWith?: string[];
   /** names of the swatches it may merge with (some plausible spectra would merge them) */
   mayMergeWith?: string[];
+  /** how many more it merges / may merge with than are named (the server names a few per swatch) */
+  moreMerges?: number;
+  moreMayMerge?: number;
   estimated?: boolean;
   size?: 'md' | 'sm';
 }
 
 /** A swatch as a split chip: its colour to the eye beside its simulated grey, with zone, stops and shift. */
-export function SplitChip({ name, hex, tone, mergesWith = [], mayMergeWith = [], estimated, size = 'md' }: Props) {
+/** Names, then "and N more" when more are counted than named. */
+const namesAndMore = (names: string[], more = 0) => `${names.join(', ')}${more > 0 ? ` and ${more} more` : ''}`;
+
+export function SplitChip({ name, hex, tone, mergesWith = [], mayMergeWith = [], moreMerges = 0, moreMayMerge = 0, estimated, size = 'md' }: Props) {
   const merged = mergesWith.length > 0;
   const mayMerge = !merged && mayMergeWith.length > 0;
   const h = size === 'md' ? 'h-16' : 'h-11';
   const exact = isExact(tone.range);
   const wide = widthOf(tone.range.plausible) >= WIDE_WIDTH;
-  const label = `${name}: zone ${tone.numeral}, ${signedStops(tone.stops)} from middle grey, shift ${signedStops(tone.shift)}, ${rangeLabel(tone.range)}${merged ? `, merges with ${mergesWith.join(', ')}` : ''}${mayMergeWith.length ? `, may merge with ${mayMergeWith.join(', ')}` : ''}${tone.lost ? ', shadow detail lost' : ''}${tone.blown ? ', highlight blown' : ''}`;
+  const label = `${name}: zone ${tone.numeral}, ${signedStops(tone.stops)} from middle grey, shift ${signedStops(tone.shift)}, ${rangeLabel(tone.range)}${merged ? `, merges with ${namesAndMore(mergesWith, moreMerges)}` : ''}${mayMergeWith.length ? `, may merge with ${namesAndMore(mayMergeWith, moreMayMerge)}` : ''}${tone.lost ? ', shadow detail lost' : ''}${tone.blown ? ', highlight blown' : ''}`;
   return (
     <figure
       className={`overflow-hidden rounded-md border bg-paper-raised ${merged ? 'border-warn ring-2 ring-warn/40' : mayMerge ? 'border-dashed border-warn/60' : 'border-paper-line'}`}
@@ -55,8 +61,8 @@ export function SplitChip({ name, hex, tone, mergesWith = [], mayMergeWith = [],
         </div>
         {(merged || mayMergeWith.length > 0 || tone.lost || tone.blown || estimated) && (
           <div className="mt-0.5 flex flex-wrap gap-1 text-[10px]">
-            {merged && <span className="rounded bg-warn-soft px-1 text-warn">merges with {mergesWith.join(', ')}</span>}
-            {mayMergeWith.length > 0 && <span className="rounded border border-dashed border-warn/50 px-1 text-warn/90">may merge with {mayMergeWith.join(', ')}</span>}
+            {merged && <span className="rounded bg-warn-soft px-1 text-warn">merges with {namesAndMore(mergesWith, moreMerges)}</span>}
+            {mayMergeWith.length > 0 && <span className="rounded border border-dashed border-warn/50 px-1 text-warn/90">may merge with {namesAndMore(mayMergeWith, moreMayMerge)}</span>}
             {tone.lost && <span className="rounded bg-warn-soft px-1 text-warn">detail lost</span>}
             {tone.blown && <span className="rounded bg-warn-soft px-1 text-warn">blown</span>}
             {estimated && <span className="rounded bg-paper-sunk px-1 text-ink-mute">estimated spectrum</span>}

@@ -3,6 +3,7 @@ import { Link } from 'react-router-dom';
 import { SplitChip } from '../../../components/ui/split-chip';
 import type { BoardView, LookTones } from '../../../../shared/schemas/board';
 import type { Department } from '../../../../shared/schemas/roles';
+import { mergeNames, mergesById } from '../../../lib/merge-names';
 
 /** A board's swatches through the look on the bench, as the analysis answers them. */
 export interface BenchBoardTones {
@@ -32,8 +33,8 @@ export function BenchBoard({ boards, boardId, onBoard, chips, stale, boardLink }
   boardLink: string | null;
 }) {
   const sorted = chips ? [...chips.tones.tones].sort((a, b) => b.stops - a.stops) : [];
-  const mergesOf = (id: number, certain: boolean) =>
-    (chips?.tones.merges ?? []).filter((m) => (m.a === id || m.b === id) && (m.certainty === 'certain') === certain).map((m) => chips!.swatches.find((s) => s.id === (m.a === id ? m.b : m.a))?.name ?? '');
+  const merges = mergesById(chips?.tones);
+  const nameOf = (id: number) => chips?.swatches.find((s) => s.id === id)?.name ?? '';
   return (
     <>
       <div className="mb-3 flex flex-wrap items-end justify-between gap-2">
@@ -50,7 +51,7 @@ export function BenchBoard({ boards, boardId, onBoard, chips, stale, boardLink }
         <div className={`grid grid-cols-2 gap-2 sm:grid-cols-3 xl:grid-cols-4 ${stale ? 'opacity-80' : ''}`} aria-busy={stale}>
           {sorted.map((t) => {
             const s = chips.swatches.find((x) => x.id === t.swatchId)!;
-            return <SplitChip key={t.swatchId} name={s.name} hex={s.hex} tone={t} mergesWith={mergesOf(t.swatchId, true)} mayMergeWith={mergesOf(t.swatchId, false)} estimated={s.estimated} size="sm" />;
+            return <SplitChip key={t.swatchId} name={s.name} hex={s.hex} tone={t} {...mergeNames(merges.get(t.swatchId), nameOf)} estimated={s.estimated} size="sm" />;
           })}
         </div>
       )}

@@ -6,6 +6,8 @@ import { greyCss, signedStops } from '../../../lib/tone-format';
 import { downloadText, toCsv } from '../lib/board-csv';
 import { RangeBar } from '../../../components/ui/range-bar';
 import { isExact, WIDE_WIDTH, widthOf, zoneSpanWords } from '../../../lib/tone-range';
+import type { MergeNames } from '../../../lib/merge-names';
+import { useWindowRows } from '../hooks/use-window-rows';
 
 export interface BoardRow {
   id: number;
@@ -13,15 +15,23 @@ export interface BoardRow {
   department: string;
   hex: string;
   spectrum: SwatchView['spectrum'];
-  /** per look id: its tone and the names it merges with (whatever the spectra) and may merge with */
-  looks: Record<number, { tone: SwatchTone; mergesWith: string[]; mayMergeWith: string[] }>;
+  /** per look id: its tone and the names it merges with (whatever the spectra) and may merge with, and how many more */
+  looks: Record<number, { tone: SwatchTone } & MergeNames>;
 }
 
 const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel(), sortFns: { alphanumeric: sortFn_alphanumeric } });
 const helper = createColumnHelper<typeof features, BoardRow>();
 
-/** At most two names, then how many more (all of them are in the cell's title and the CSV). */
-const fewNames = (names: string[]) => (names.length <= 2 ? names.join(', ') : `${names.slice(0, 2).join(', ')} +${names.length - 2} more`);
+/** At most two names, then how many more (the names listed are in the cell's title and the CSV). */
+const fewNames = (names: string[], more = 0) => {
+  const rest = Math.max(0, names.length - 2) + more;
+  return rest ? `${names.slice(0, 2).join(', ')} +${rest} more` : names.join(', ');
+};
+/** Names, then how many more the server counted beyond those it listed. */
+const allNames = (names: string[], more: number) => `${names.join(', ')}${more > 0 ? ` and ${more} more` : ''}`;
+
+/** Names for the CSV, then how many more the server counted. */
+const csvNames = (names: string[], more: number) => [...names, ...(more > 0 ? [`and ${more} more`] : [])].join('; ');
 
 /** A table sort as text for the address: "zone-3:desc,name:asc". */
 export const sortingToText = (s: SortingState) => s.map((x) => `${x.id}:${x.desc ? 'desc' : 'asc'}`).join(',');
@@ -86,8 +96,8 @@ export function BoardTable({ rows, looks, fileName, sorting, onSorting }: { rows
                     <RangeBar range={t.range} stops={t.stops} className="w-14" />
                     <span className={`whitespace-nowrap text-[11px] ${exact ? 'text-accent' : w >= WIDE_WIDTH ? 'font-semibold text-warn' : ''}`}>{exact ? 'measured' : `${zoneSpanWords(t.range.plausible)} (${w.toFixed(1)} st)`}</span>
                   </span>
-                  {x.mergesWith.length > 0 && <span className="text-[11px] text-warn" title={x.mergesWith.join(', ')}><span className="font-semibold">merges:</span> {fewNames(x.mergesWith)}</span>}
-                  {x.mayMergeWith.length > 0 && <span className="text-[11px] text-warn/75" title={x.mayMergeWith.join(', ')}><span className="font-medium">may merge:</span> {fewNames(x.mayMergeWith)}</span>}
+                  {x.mergesWith.length > 0 && <span className="text-[11px] text-warn" title={allNames(x.mergesWith, x.moreMerges)}><span className="font-semibold">merges:</span> {fewNames(x.mergesWith, x.moreMerges)}</span>}
+                  {x.mayMergeWith.length > 0 && <span className="text-[11px] text-warn/75" title={allNames(x.mayMergeWith, x.moreMayMerge)}><span className="font-medium">may merge:</span> {fewNames(x.mayMergeWith, x.moreMayMerge)}</span>}
                 </span>
               );
             },
@@ -98,6 +108,14 @@ export function BoardTable({ rows, looks, fileName, sorting, onSorting }: { rows
   );
   const table = useTable({ features, columns, data: rows, getRowId: (r) => String(r.id), state: { sorting }, onSortingChange: (u) => onSorting(typeof u === 'function' ? u(sorting) : u) });
 
+  const all = table.getRowModel().rows;
+  const win = useWindowRows<HTMLTableSectionElement>(all.length, 64);
+  // a long board draws only the rows near the view, with spacer rows keeping the table's height
+  const shown = win.on ? win.items.map((it) => ({ row: all[it.index], index: it.index })) : all.map((row, index) => ({ row, index }));
+  const padTop = win.on && win.items.length ? win.items[0].start - win.scrollMargin : 0;
+  const padBottom = win.on && win.items.length ? win.totalPx - (win.items[win.items.length - 1].end - win.scrollMargin) : 0;
+  const span = all[0]?.getAllCells().length ?? 1;
+
   function exportCsv() {
     const header = ['swatch', 'department', 'colour', 'spectrum', ...looks.flatMap((l) => [`zone (${l.name})`, `zone numeral (${l.name})`, `stops (${l.name})`, `eye stops (${l.name})`, `shift stops (${l.name})`, `grey 0-255 (${l.name})`, `plausible low stops (${l.name})`, `plausible high stops (${l.name})`, `possible low stops (${l.name})`, `possible high stops (${l.name})`, `merges with (${l.name})`, `may merge with (${l.name})`])];
     const data = table.getRowModel().rows.map((row) => {
@@ -106,7 +124,7 @@ export function BoardTable({ rows, looks, fileName, sorting, onSorting }: { rows
         const x = r.looks[l.id];
         const rg = x?.tone.range;
         return x && rg
-          ? [x.tone.zone.toFixed(2), x.tone.numeral, x.tone.stops.toFixed(2), x.tone.eyeStops.toFixed(2), x.tone.shift.toFixed(2), Math.round(x.tone.grey), rg.plausible[0].toFixed(2), rg.plausible[1].toFixed(2), rg.possible[0].toFixed(2), rg.possible[1].toFixed(2), x.mergesWith.join('; '), x.mayMergeWith.join('; ')]
+          ? [x.tone.zone.toFixed(2), x.tone.numeral, x.tone.stops.toFixed(2), x.tone.eyeStops.toFixed(2), x.tone.shift.toFixed(2), Math.round(x.tone.grey), rg.plausible[0].toFixed(2), rg.plausible[1].toFixed(2), rg.possible[0].toFixed(2), rg.possible[1].toFixed(2), csvNames(x.mergesWith, x.moreMerges), csvNames(x.mayMergeWith, x.moreMayMerge)]
           : ['', '', '', '', '', '', '', '', '', '', '', ''];
       })];
     });
@@ -141,14 +159,16 @@ export function BoardTable({ rows, looks, fileName, sorting, onSorting }: { rows
               </tr>
             ))}
           </thead>
-          <tbody>
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className="border-b border-paper-line last:border-0">
+          <tbody ref={win.ref}>
+            {padTop > 0 && <tr aria-hidden="true"><td colSpan={span} style={{ height: padTop, padding: 0 }} /></tr>}
+            {shown.map(({ row, index }) => (
+              <tr key={row.id} data-index={index} ref={win.on ? win.virtualizer.measureElement : undefined} className="border-b border-paper-line last:border-0">
                 {row.getAllCells().map((cell) => (
                   <td key={cell.id} className="px-2 py-1.5 align-top tabular"><table.FlexRender cell={cell} /></td>
                 ))}
               </tr>
             ))}
+            {padBottom > 0 && <tr aria-hidden="true"><td colSpan={span} style={{ height: padBottom, padding: 0 }} /></tr>}
           </tbody>
         </table>
       </div>

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import type { LookTones } from '../../../../shared/schemas/board';
-import { sortMerges } from '../lib/board-rows';
+import { mergePairs } from '../lib/board-rows';
 
 /** Possible merges shown before the rest fold away. */
 const POSSIBLE_SHOWN = 4;
@@ -8,20 +8,24 @@ const POSSIBLE_SHOWN = 4;
 /**
  * The merges of one look, in words: which two swatches read as one grey, how close on the medium and how far
  * apart to the eye. Those that merge whatever their spectra come first ("merges"); those only some plausible
- * spectra would merge follow in a lighter warning ("may merge"), the rest folded behind a button.
+ * spectra would merge follow in a lighter warning ("may merge"), the rest folded behind a button. The counts
+ * are the server's (every pair); the pairs listed are those its per-swatch partner lists name.
  */
 export function MergeList({ look, nameOf }: { look: LookTones; nameOf: (id: number) => string }) {
   const [all, setAll] = useState(false);
-  if (!look.merges.length) return <p className="text-xs text-ink-mute">No merges through {look.lookName}.</p>;
-  const sorted = sortMerges(look.merges);
+  if (!look.mergeCount) return <p className="text-xs text-ink-mute">No merges through {look.lookName}.</p>;
+  const sorted = mergePairs(look);
   const certain = sorted.filter((m) => m.certainty === 'certain');
   const possible = sorted.filter((m) => m.certainty !== 'certain');
   const shown = all ? possible : possible.slice(0, POSSIBLE_SHOWN);
+  const certainCount = look.certainMergeCount;
+  const possibleCount = look.mergeCount - look.certainMergeCount;
+  const unlisted = look.mergeCount - sorted.length;
   return (
     <div className="grid gap-1 text-xs">
       <p className="text-ink-mute tabular">
-        {certain.length > 0 ? <span className="font-semibold text-warn">{certain.length} certain merge{certain.length > 1 ? 's' : ''}</span> : 'No certain merges'}
-        {possible.length > 0 && <> · <span className="text-warn/80">{possible.length} possible</span>: measure the swatches to be sure</>}
+        {certainCount > 0 ? <span className="font-semibold text-warn">{certainCount} certain merge{certainCount > 1 ? 's' : ''}</span> : 'No certain merges'}
+        {possibleCount > 0 && <> · <span className="text-warn/80">{possibleCount} possible</span>: measure the swatches to be sure</>}
       </p>
       <ul className="grid gap-1" aria-label={`Merges through ${look.lookName}`}>
         {[...certain, ...shown].map((m) => {
@@ -39,6 +43,9 @@ export function MergeList({ look, nameOf }: { look: LookTones; nameOf: (id: numb
         <button type="button" className="justify-self-start rounded px-1 text-accent underline hover:text-accent-strong" aria-expanded={all} onClick={() => setAll((x) => !x)}>
           {all ? 'Show fewer' : `Show ${possible.length - POSSIBLE_SHOWN} more that may merge`}
         </button>
+      )}
+      {unlisted > 0 && (all || possible.length <= POSSIBLE_SHOWN) && (
+        <p className="text-ink-mute" data-testid="merges-unlisted">and {unlisted} more pair{unlisted > 1 ? 's' : ''}, not listed: each swatch's chip names its nearest</p>
       )}
     </div>
   );

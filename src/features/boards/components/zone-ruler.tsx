@@ -1,5 +1,6 @@
 import { useLayoutEffect, useRef, useState } from 'react';
-import type { Merge, SwatchTone } from '../../../../shared/schemas/board';
+import type { SwatchTone } from '../../../../shared/schemas/board';
+import type { MergeCertainty } from '../lib/board-rows';
 import { zoneFromStops } from '../../../../shared/tone/zones';
 import { zoneFrac } from '../../../components/ui/range-bar';
 import { signedStops } from '../../../lib/tone-format';
@@ -22,7 +23,7 @@ export interface RulerPin {
   hex: string;
   tone: SwatchTone;
   /** how sure its merge is, when it merges with another swatch through this look */
-  merged: Merge['certainty'] | null;
+  merged: MergeCertainty | null;
 }
 
 /** Rough label width for a name at 10 px Inter, px (enough to keep neighbours apart). */

@@ -2,7 +2,9 @@
  * A board's rows: its swatches joined with their tones through each look shown (and whom they merge with),
  * and the orders the chips can be laid out in. Pure; the board page and its table read these.
  */
-import type { BoardView, LookTones, Merge } from '../../../../shared/schemas/board';
+import type { BoardView, LookTones } from '../../../../shared/schemas/board';
+import { mergeNames, mergesById, type MergeCertainty } from '../../../lib/merge-names';
+export type { MergeCertainty };
 import { isExact, MEASURE_FIRST_WIDTH, widthOf } from '../../../lib/tone-range';
 import type { SwatchView } from '../../../../shared/schemas/swatch';
 import type { BoardRow } from '../components/board-table';
@@ -18,17 +20,18 @@ export function shownLooksOf(all: readonly LookTones[], lookIds: readonly number
 /** Name of a swatch by id (`#id` when it is not known). */
 export const swatchName = (swatchById: ReadonlyMap<number, SwatchLike>, id: number) => swatchById.get(id)?.name ?? `#${id}`;
 
+
 /** One row per swatch on the board, in the board's order: its tone through each look and the names it merges with there. */
 export function boardRows(swatchIds: readonly number[], swatchById: ReadonlyMap<number, SwatchLike>, looks: readonly LookTones[]): BoardRow[] {
+  const nameOf = (id: number) => swatchName(swatchById, id);
+  const perLook = looks.map((l) => ({ l, tone: new Map(l.tones.map((t) => [t.swatchId, t])), merges: mergesById(l) }));
   return swatchIds.map((id) => {
     const s = swatchById.get(id);
     const per: BoardRow['looks'] = {};
-    for (const l of looks) {
-      const t = l.tones.find((x) => x.swatchId === id);
+    for (const { l, tone, merges } of perLook) {
+      const t = tone.get(id);
       if (!t) continue;
-      const mine = l.merges.filter((m) => m.a === id || m.b === id);
-      const other = (m: Merge) => swatchName(swatchById, m.a === id ? m.b : m.a);
-      per[l.lookId] = { tone: t, mergesWith: mine.filter((m) => m.certainty === 'certain').map(other), mayMergeWith: mine.filter((m) => m.certainty !== 'certain').map(other) };
+      per[l.lookId] = { tone: t, ...mergeNames(merges.get(id), nameOf) };
     }
     return { id, name: s?.name ?? `#${id}`, department: s?.department ?? '', hex: s?.hex ?? '#000000', spectrum: s?.spectrum ?? 'estimated', looks: per };
   });
@@ -46,25 +49,42 @@ export function sortRows(rows: readonly BoardRow[], sort: BoardSort, lookId: num
 }
 
 /** How sure a merge is, per swatch id through `look`: 'certain' when any of its merges is, else 'possible'. */
-export function mergedIds(look: LookTones | undefined): Map<number, Merge['certainty']> {
-  const out = new Map<number, Merge['certainty']>();
-  for (const m of look?.merges ?? []) {
-    for (const id of [m.a, m.b]) if (out.get(id) !== 'certain') out.set(id, m.certainty);
+export function mergedIds(look: LookTones | undefined): Map<number, MergeCertainty> {
+  return new Map((look?.merges ?? []).map((m) => [m.swatchId, m.certainCount > 0 ? 'certain' : 'possible']));
+}
+
+/** Two swatches that merge through a look: a < b by id, how far apart on the medium and to the eye. */
+export interface MergePair {
+  a: number;
+  b: number;
+  certainty: MergeCertainty;
+  /** |stops a − stops b| on the medium */
+  stopsApart: number;
+  /** CIEDE2000 to the eye */
+  deltaE: number;
+}
+
+/**
+ * The pairs a look's per-swatch partner lists name (each once), certain ones first, each kind closest on
+ * the medium first. The server lists a few partners per swatch, so this can be fewer than the look's
+ * `mergeCount`; the counts say how many there are in all.
+ */
+export function mergePairs(look: LookTones): MergePair[] {
+  const stops = new Map(look.tones.map((t) => [t.swatchId, t.stops]));
+  const seen = new Map<string, MergePair>();
+  for (const m of look.merges) {
+    for (const p of m.partners) {
+      const [a, b] = m.swatchId < p.swatchId ? [m.swatchId, p.swatchId] : [p.swatchId, m.swatchId];
+      const key = `${a}-${b}`;
+      if (!seen.has(key)) seen.set(key, { a, b, certainty: p.certain ? 'certain' : 'possible', stopsApart: Math.abs((stops.get(a) ?? 0) - (stops.get(b) ?? 0)), deltaE: p.deltaE });
+    }
   }
-  return out;
+  return [...seen.values()].sort((x, y) => (x.certainty === y.certainty ? x.stopsApart - y.stopsApart : x.certainty === 'certain' ? -1 : 1));
 }
 
-/** A look's merges, certain ones first, each kind closest on the medium first. */
-export function sortMerges(merges: readonly Merge[]): Merge[] {
-  return [...merges].sort((x, y) => (x.certainty === y.certainty ? x.stopsApart - y.stopsApart : x.certainty === 'certain' ? -1 : 1));
-}
-
-/** Merges flagged over all the looks shown: certain ones and possible ones. */
+/** Merges flagged over all the looks shown: certain ones and possible ones (pairs, from the server's counts). */
 export const mergeCount = (looks: readonly LookTones[]) =>
-  looks.reduce((n, l) => {
-    for (const m of l.merges) n[m.certainty === 'certain' ? 'certain' : 'possible']++;
-    return n;
-  }, { certain: 0, possible: 0 });
+  looks.reduce((n, l) => ({ certain: n.certain + l.certainMergeCount, possible: n.possible + l.mergeCount - l.certainMergeCount }), { certain: 0, possible: 0 });
 
 /** A swatch worth measuring: its widest plausible range over the looks shown, and through which look. */
 export interface MeasureFirst {

@@ -1,30 +1,10 @@
-import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import { lazyChart } from '../../../components/ui/lazy-chart';
+import type { CurveChartProps } from './curve-chart-drawing';
 
-export interface ChartSeries {
-  label: string;
-  /** `[nm, value]` pairs (any spacing) */
-  pairs: [number, number][];
-}
+export type { ChartSeries, CurveChartProps } from './curve-chart-drawing';
 
-const COLOURS = ['#1b1a18', '#c2410c', '#1d5c7a', '#3f9a5a', '#7a5bb0', '#b08a1f'];
-
-/** One or a few curves on 350–900 nm (values as given; `yMax` fixes the scale, e.g. 1 for transmittance). No animation. */
-export function CurveChart({ series, yLabel, yMax, height = 220 }: { series: ChartSeries[]; yLabel: string; yMax?: number; height?: number }) {
-  const nms = [...new Set(series.flatMap((s) => s.pairs.map((p) => p[0])))].sort((a, b) => a - b);
-  const maps = series.map((s) => new Map(s.pairs));
-  const data = nms.map((nm) => Object.fromEntries([['nm', nm], ...maps.map((m, i) => [`s${i}`, m.get(nm) ?? null])]));
-  return (
-    <figure aria-label={`Chart: ${series.map((s) => s.label).join(', ')}`}>
-      <ResponsiveContainer width="100%" height={height}>
-        <LineChart data={data} margin={{ top: 8, right: 12, bottom: 4, left: 0 }}>
-          <CartesianGrid stroke="#e3dfd5" strokeDasharray="2 3" />
-          <XAxis dataKey="nm" type="number" domain={['dataMin', 'dataMax']} tick={{ fontSize: 11 }} unit=" nm" />
-          <YAxis domain={[0, yMax ?? 'auto']} tick={{ fontSize: 11 }} width={44} label={{ value: yLabel, angle: -90, position: 'insideLeft', fontSize: 11, dy: 40 }} />
-          <Tooltip isAnimationActive={false} labelFormatter={(nm) => `${nm} nm`} formatter={(v) => (typeof v === 'number' ? v.toPrecision(4) : v)} />
-          {series.length > 1 && <Legend wrapperStyle={{ fontSize: 12 }} />}
-          {series.map((s, i) => <Line key={i} dataKey={`s${i}`} name={s.label} stroke={COLOURS[i % COLOURS.length]} dot={false} connectNulls isAnimationActive={false} strokeWidth={1.75} />)}
-        </LineChart>
-      </ResponsiveContainer>
-    </figure>
-  );
-}
+/**
+ * One or a few curves on 350–900 nm, 220 px high unless told (drawn by curve-chart-drawing.tsx). Loaded when
+ * first drawn, so the library page and its forms fetch recharts only once a curve is on screen.
+ */
+export const CurveChart = lazyChart<CurveChartProps>(() => import('./curve-chart-drawing').then((m) => m.CurveChartDrawing), 220);
