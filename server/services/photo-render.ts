@@ -9,11 +9,13 @@
  * (shared/photo/apply-lut.ts). On large images a worker thread takes the bottom half of the pass
  * (photo-pass-pool.ts). Small 8-bit photos (under SMALL_IMAGE_PIXELS) skip the 2²⁴ table: the same
  * per-colour computation, its results kept in a sparse table of the colours met (exact-lut.ts
- * applyExactSparse), since allocating and touching 32–64 MB costs more than their whole pass.
+ * applyExactSparse), since allocating and touching 32–64 MB costs more than their whole pass; and
+ * their look's exposures are computed only at the upsampling table's nodes their colours touch
+ * (shared/spectral/node-spectra.ts LazyNodeExposures), not at all 98,304.
  */
 import sharp, { type JpegOptions, type PngOptions } from 'sharp';
 import { applyLut16, planLut16, type LutPlan16, type OutputBits } from '../../shared/photo/apply-lut';
-import { applyExactLut, applyExactSparse, exactColours, sparseColours, type ExactColours, type ExactLut, type SparseColours } from '../../shared/photo/exact-lut';
+import { applyExactLut, applyExactSparse, exactColours, filledColours, sparseColours, type ExactColours, type ExactLut, type SparseColours } from '../../shared/photo/exact-lut';
 import { buildPhotoLut, type PhotoToneModel } from '../../shared/photo/look-photo-model';
 import { RENDER_LUT_SIZE } from '../../shared/photo/exposure-lut';
 import type { RenderFormat } from '../../shared/schemas/photo';
@@ -56,9 +58,13 @@ export async function buildRenderTable(model: PhotoToneModel, inputBits: 8 | 16,
   return { kind: 'plan16', plan: planLut16(buildPhotoLut(model, RENDER_LUT_SIZE), model.tone, outputBits) };
 }
 
-/** The lazy exact table of an 8-bit render table, allocated (zeroed, pages touched) on first need. */
+/**
+ * The lazy exact table of an 8-bit render table, allocated (zeroed, pages touched) on first need, with
+ * every node's exposure filled in first (small renders compute only the nodes their colours touch; the
+ * worker thread gets the filled exposures and computes none).
+ */
 function lazyTable(table: Exact8Table): ExactLut {
-  table.lut ??= { codes: passPool.allocLazy(table.bits), ...table.colours };
+  table.lut ??= { codes: passPool.allocLazy(table.bits), ...filledColours(table.colours) };
   table.sparse = null; // small renders use the full table from now on
   return table.lut;
 }

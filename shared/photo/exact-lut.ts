@@ -16,13 +16,17 @@
  * checks it against those functions.
  * Small images skip the table: `applyExactSparse` keeps the colours met in a sparse table of 4³-colour
  * blocks (the same `exactCode` for each), since allocating and touching 32–64 MB costs more than their
- * whole pass.
+ * whole pass; and `exactCode` computes the look's exposure at the nodes of each colour's cell as it meets
+ * them (`ExactColours.nodes`), where computing all 98,304 first would cost more than sharp's whole
+ * greyscale of such a photo. The full table fills every node first (`filledColours`), so the worker
+ * computes none.
  */
 import { FLOOR_STOPS, MIDDLE_GREY } from '../spectral/limits';
 import { srgbDecode } from '../tone/print';
 import { MAX_Q, MIN_STOPS, STOPS_Q, type OutputBits } from '../look/tone-curve-table';
 import type { GreyBuffer } from './apply-lut';
 import type { PhotoToneModel } from './look-photo-model';
+import { fillNodeExposures, type LazyNodeExposures } from '../spectral/node-spectra';
 
 /** What the lazy exact table needs (typed arrays may live in shared memory). */
 export interface ExactLut {
@@ -36,6 +40,12 @@ export interface ExactLut {
   resolution: number;
   zNodes: Float32Array;
   nodeM: Float64Array;
+  /**
+   * while not null and not complete, `nodeM[k]` is valid only where `done[k]` is set, and `exactCode`
+   * computes the nodes of a colour's cell as it meets them (small images: only the nodes their colours
+   * touch); null for the full table (every node filled first, nothing more for a worker to compute)
+   */
+  nodes: LazyNodeExposures | null;
   /** fixed-point stops → output code (the look's codes, tone-curve-table.ts outputCodes) */
   out: Uint8Array | Uint16Array;
   minStops: number;
@@ -51,7 +61,16 @@ export type ExactColours = Omit<ExactLut, 'codes'>;
 /** A lazy exact table for a look and output depth (`codes`: 2²⁴ zeroed entries from the caller, e.g. in shared memory). */
 export function exactLut(codes: Uint16Array | Uint32Array, model: PhotoToneModel, bits: OutputBits): ExactLut {
   if (codes.length !== 1 << 24) throw new Error('exactLut: codes must hold 2^24 entries');
-  return { codes, ...exactColours(model, bits) };
+  return { codes, ...filledColours(exactColours(model, bits)) };
+}
+
+/**
+ * The same computation with every node's exposure filled in (the nodes met so far kept: they are the
+ * same bits), for the full table: its colours may be computed in a worker, which gets `nodeM` only.
+ */
+export function filledColours(c: ExactColours): ExactColours {
+  if (c.nodes) fillNodeExposures(c.nodes);
+  return { ...c, nodes: null };
 }
 
 /** The per-colour computation of a look and output depth, without a table (small images: applyExactSparse). */
@@ -63,7 +82,9 @@ export function exactColours(model: PhotoToneModel, bits: OutputBits): ExactColo
     lin,
     resolution: model.upsample.resolution,
     zNodes: model.upsample.zNodes,
-    nodeM: model.nodeM,
+    // the model's lazily computed exposures when it has them (photoToneModel's do), else all of them
+    nodeM: model.nodes ? model.nodes.values : model.nodeM,
+    nodes: model.nodes ?? null,
     out: model.codes(bits),
     minStops: MIN_STOPS,
     q: STOPS_Q,
@@ -123,6 +144,48 @@ export function exactCode(t: ExactColours, key: number): number {
   const p = ((l * R + zi) * R + yi) * R + xi;
   const sy = R;
   const sz = R * R;
+  const lazy = t.nodes;
+  if (lazy && !lazy.complete) {
+    // the cell's corner nodes not computed yet, each as node-spectra.ts lazyNodeExposure computes it (the
+    // same sum in the same order); a z plane's four corners at once when none is done yet (a new region of
+    // colours), their four chains of additions overlapping as in node-spectra.ts nodeExposures
+    const { done, reflectances: refl, weights: w, size: S } = lazy;
+    for (let dz = 0; dz < 2; dz++) {
+      const q = p + dz * sz;
+      if (!done[q] && !done[q + 1] && !done[q + sy] && !done[q + sy + 1]) {
+        const o0 = q * S;
+        const o1 = o0 + S;
+        const o2 = (q + sy) * S;
+        const o3 = o2 + S;
+        let m0 = 0;
+        let m1 = 0;
+        let m2 = 0;
+        let m3 = 0;
+        for (let i = 0; i < S; i++) {
+          const wi = w[i];
+          m0 += wi * refl[o0 + i];
+          m1 += wi * refl[o1 + i];
+          m2 += wi * refl[o2 + i];
+          m3 += wi * refl[o3 + i];
+        }
+        vals[q] = m0;
+        vals[q + 1] = m1;
+        vals[q + sy] = m2;
+        vals[q + sy + 1] = m3;
+        done[q] = done[q + 1] = done[q + sy] = done[q + sy + 1] = 1;
+        continue;
+      }
+      for (let c = 0; c < 4; c++) {
+        const k = q + (c & 1) + (c & 2 ? sy : 0);
+        if (done[k]) continue;
+        const o = k * S;
+        let m = 0;
+        for (let i = 0; i < S; i++) m += w[i] * refl[o + i];
+        vals[k] = m;
+        done[k] = 1;
+      }
+    }
+  }
   const c00 = vals[p] * (1 - fx) + vals[p + 1] * fx;
   const c01 = vals[p + sy] * (1 - fx) + vals[p + sy + 1] * fx;
   const c10 = vals[p + sz] * (1 - fx) + vals[p + sz + 1] * fx;

@@ -10,7 +10,7 @@
  */
 import type { ComposedLook } from '../look/compose-look';
 import { greyOfStops, type ToneCurveTable } from '../look/tone-curve-table';
-import { nodeExposures, nodeReflectances } from '../spectral/node-spectra';
+import { fillNodeExposures, lazyNodeExposures, nodeReflectances, type LazyNodeExposures } from '../spectral/node-spectra';
 import { interpolateAtCell, locateCell, type TableCell, type UpsampleTable } from '../spectral/upsample-table';
 import { FLOOR_STOPS, MIDDLE_GREY } from '../spectral/limits';
 import { srgbDecode } from '../tone/print';
@@ -19,16 +19,34 @@ import { buildExposureLut, type ExposureLut } from './exposure-lut';
 /** Everything needed to tone a pixel through one look. */
 export interface PhotoToneModel {
   readonly upsample: UpsampleTable;
-  /** m at every node of the upsampling table for the look's light path (linear, 0.18 = middle grey) */
+  /** m at every node of the upsampling table for the look's light path (linear, 0.18 = middle grey); all computed on first read */
   readonly nodeM: Float64Array;
+  /**
+   * the same exposures computed node by node on demand (photoToneModel's models; absent in hand-made
+   * ones): small photos compute only the nodes their colours touch (shared/photo/exact-lut.ts)
+   */
+  readonly nodes?: LazyNodeExposures;
   readonly tone: ToneCurveTable;
   /** the look's output codes by fixed-point stops (ComposedLook.codes) */
   readonly codes: ComposedLook['codes'];
 }
 
-/** Prepares a composed look for photos: its light path's exposure at every node of the estimate's table, and its tone. */
+/**
+ * Prepares a composed look for photos: its light path's exposure at the nodes of the estimate's table,
+ * computed when first needed (all of them on the first read of `nodeM`; node by node for a small
+ * photo's colours), and its tone.
+ */
 export function photoToneModel(look: ComposedLook, upsample: UpsampleTable): PhotoToneModel {
-  return { upsample, nodeM: nodeExposures(nodeReflectances(upsample), look.path.mediumWeights), tone: look.toneTable, codes: look.codes };
+  const nodes = lazyNodeExposures(nodeReflectances(upsample), look.path.mediumWeights);
+  return {
+    upsample,
+    get nodeM() {
+      return fillNodeExposures(nodes);
+    },
+    nodes,
+    tone: look.toneTable,
+    codes: look.codes,
+  };
 }
 
 const cell: TableCell = { node: 0, fx: 0, fy: 0, fz: 0 };

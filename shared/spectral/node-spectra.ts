@@ -23,15 +23,95 @@ export function nodeReflectances(table: UpsampleTable): Float32Array {
  * interpolation the nodes go through), so a node costs one 111-term dot product.
  */
 export function nodeExposures(reflectances: Float32Array, weights: Float64Array): Float64Array {
-  const w = weightsToEstimateGrid(weights);
-  const n = reflectances.length / ESTIMATE_SIZE;
-  const out = new Float64Array(n);
-  for (let k = 0, o = 0; k < n; k++) {
+  const out = new Float64Array(reflectances.length / ESTIMATE_SIZE);
+  exposuresInto(reflectances, weightsToEstimateGrid(weights), out);
+  return out;
+}
+
+/**
+ * Every node's dot product into `out`. Four nodes at a time: each node's sum keeps its own order (so the
+ * same bits as one node at a time, and as `lazyNodeExposure`), but the four independent chains of
+ * additions overlap in the processor instead of each waiting on the previous addition (measured about
+ * 1.6× faster for the 98,304 nodes).
+ */
+function exposuresInto(reflectances: Float32Array, w: Float64Array, out: Float64Array): void {
+  const S = ESTIMATE_SIZE;
+  const n = out.length;
+  let k = 0;
+  for (; k + 3 < n; k += 4) {
+    const o = k * S;
+    let m0 = 0;
+    let m1 = 0;
+    let m2 = 0;
+    let m3 = 0;
+    for (let i = 0; i < S; i++) {
+      const wi = w[i];
+      m0 += wi * reflectances[o + i];
+      m1 += wi * reflectances[o + S + i];
+      m2 += wi * reflectances[o + 2 * S + i];
+      m3 += wi * reflectances[o + 3 * S + i];
+    }
+    out[k] = m0;
+    out[k + 1] = m1;
+    out[k + 2] = m2;
+    out[k + 3] = m3;
+  }
+  for (; k < n; k++) {
+    const o = k * S;
     let m = 0;
-    for (let i = 0; i < ESTIMATE_SIZE; i++, o++) m += w[i] * reflectances[o];
+    for (let i = 0; i < S; i++) m += w[i] * reflectances[o + i];
     out[k] = m;
   }
-  return out;
+}
+
+/**
+ * Node exposures computed on demand: a small photo meets a few thousand colours, touching only the nodes
+ * of their cells, where computing all 98,304 costs more than sharp's whole greyscale of it. `values[k]`
+ * is valid once `done[k]` is 1; a node is computed exactly as `nodeExposures` computes it (the same sum
+ * in the same order), so lazily and eagerly filled values are the same bits.
+ * shared/photo/exact-lut.ts `exactCode` fills nodes itself (it refers to nothing outside its arguments);
+ * tests/unit/photo/lazy-nodes.test.ts checks both against `nodeExposures`.
+ */
+export interface LazyNodeExposures {
+  readonly values: Float64Array;
+  /** 1 where values[k] has been computed */
+  readonly done: Uint8Array;
+  readonly reflectances: Float32Array;
+  /** the weights on the estimate's grid (ESTIMATE_SIZE values) */
+  readonly weights: Float64Array;
+  /** samples per node spectrum (ESTIMATE_SIZE) */
+  readonly size: number;
+  /** whether every node is done (fillNodeExposures) */
+  complete: boolean;
+}
+
+/** Node exposures of `weights` (working grid), none computed yet. */
+export function lazyNodeExposures(reflectances: Float32Array, weights: Float64Array): LazyNodeExposures {
+  const n = reflectances.length / ESTIMATE_SIZE;
+  return { values: new Float64Array(n), done: new Uint8Array(n), reflectances, weights: weightsToEstimateGrid(weights), size: ESTIMATE_SIZE, complete: false };
+}
+
+/** Node k's exposure, computed now if not yet. */
+export function lazyNodeExposure(lazy: LazyNodeExposures, k: number): number {
+  if (lazy.done[k]) return lazy.values[k];
+  const { reflectances: refl, weights: w, size: S } = lazy;
+  const o = k * S;
+  let m = 0;
+  for (let i = 0; i < S; i++) m += w[i] * refl[o + i];
+  lazy.values[k] = m;
+  lazy.done[k] = 1;
+  return m;
+}
+
+/** Every node's exposure (those not computed yet, computed now): the filled `values`. */
+export function fillNodeExposures(lazy: LazyNodeExposures): Float64Array {
+  if (!lazy.complete) {
+    // recomputing the nodes already done writes the same bits
+    exposuresInto(lazy.reflectances, lazy.weights, lazy.values);
+    lazy.done.fill(1);
+    lazy.complete = true;
+  }
+  return lazy.values;
 }
 
 /** The eight corner nodes of a cell and their trilinear weights (zero weights included). */
