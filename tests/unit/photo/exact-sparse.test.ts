@@ -3,23 +3,16 @@ import { describe, expect, it } from 'vitest';
 import { applyExactLut, applyExactSparse, exactColours, exactLut, sparseColours } from '../../../shared/photo/exact-lut';
 import { composeLook, type LookSpectra } from '../../../shared/look/compose-look';
 import { photoToneModel } from '../../../shared/photo/look-photo-model';
-import { resolveFilter, resolveLight, resolveMedium } from '../../../shared/spectral/compute';
 import { buildRenderTable, renderGrey, type RenderTable } from '../../../server/services/photo-render';
 import { random, upsampleTable } from '../spectral/fixtures';
+import { cyanPanchromaticLook } from './fixtures';
 
 /**
  * Small images skip the full 2²⁴ table (exact-lut.ts applyExactSparse, photo-render.ts SMALL_IMAGE_PIXELS):
  * the sparse table must give byte for byte what the full one gives, for every pixel, so a small render is
  * the same render. Tolerance: none (both call the same per-colour computation, exactCode).
  */
-const spectra: LookSpectra = {
-  bareLight: resolveLight({ id: 'tungsten-3200' }),
-  filters: [{ spectrum: resolveFilter({ id: 'cyan-530' }), on: 'lens' }],
-  medium: resolveMedium({ id: 'panchromatic' }),
-  mediumToneId: 'medium.panchromatic',
-  tone: { developmentStops: 0, ratingStops: 0, printGrade: 2, printExposureStops: 0, shadowDetailStops: null, highlightRollOffStops: null, keyZone: 5 },
-  key: null,
-};
+const spectra: LookSpectra = cyanPanchromaticLook();
 
 /** Test images, interleaved RGB: random colours (the cube's surface included), a gradient, one flat colour. */
 function images(): Record<string, { width: number; height: number; rgb: Uint8Array }> {

@@ -5,9 +5,10 @@ import { composeLook, type LookSpectra } from '../../../shared/look/compose-look
 import { photoToneModel, pixelStops, type PhotoToneModel } from '../../../shared/photo/look-photo-model';
 import { fillNodeExposures, lazyNodeExposure, lazyNodeExposures, nodeExposures, nodeReflectances } from '../../../shared/spectral/node-spectra';
 import { ESTIMATE_SIZE, weightsToEstimateGrid } from '../../../shared/spectral/policy';
-import { resolveFilter, resolveLight, resolveLightPath, resolveMedium } from '../../../shared/spectral/compute';
+import { resolveLightPath } from '../../../shared/spectral/compute';
 import { buildRenderTable, renderGrey } from '../../../server/services/photo-render';
 import { random, upsampleTable } from '../spectral/fixtures';
+import { cyanPanchromaticLook } from './fixtures';
 
 /**
  * A look's node exposures are computed on demand (node-spectra.ts LazyNodeExposures): a small photo's
@@ -15,14 +16,7 @@ import { random, upsampleTable } from '../spectral/fixtures';
  * time or one at a time, a node's exposure is the same sum in the same order, so the same bits, and a
  * render is byte for byte the render through exposures computed all at once. Tolerance: none.
  */
-const spectra: LookSpectra = {
-  bareLight: resolveLight({ id: 'tungsten-3200' }),
-  filters: [{ spectrum: resolveFilter({ id: 'cyan-530' }), on: 'lens' }],
-  medium: resolveMedium({ id: 'panchromatic' }),
-  mediumToneId: 'medium.panchromatic',
-  tone: { developmentStops: 0, ratingStops: 0, printGrade: 2, printExposureStops: 0, shadowDetailStops: null, highlightRollOffStops: null, keyZone: 5 },
-  key: null,
-};
+const spectra: LookSpectra = cyanPanchromaticLook();
 
 /** The plain dot product of every node, one node at a time (what nodeExposures computed before). */
 function reference(refl: Float32Array, weights: Float64Array): Float64Array {
