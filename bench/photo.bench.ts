@@ -32,9 +32,9 @@ import { DEMO_SCENES, demoSceneJpeg } from '../server/db/seed-content/photos';
 import { RENDER_JPEG, RENDER_PNG, buildRenderTable, renderPhoto } from '../server/services/photo-render';
 import { getUpsampleTable } from '../server/services/upsample-table';
 import { nodeReflectances } from '../shared/spectral/node-spectra';
-import { composeLook, type LookSpectra } from '../shared/look/compose-look';
+import { composeLook } from '../shared/look/compose-look';
 import { photoToneModel } from '../shared/photo/look-photo-model';
-import { resolveFilter, resolveLight, resolveMedium } from '../shared/spectral/compute';
+import { cyanPanchromaticLook } from '../tests/unit/photo/fixtures';
 import type { UpsampleTable } from '../shared/spectral/upsample-table';
 
 const WIDTH = 6000;
@@ -48,17 +48,8 @@ const NOISE_RUNS = 3;
 const CHILD_FLAG = '--photo-bench-child';
 const WORK = path.join(os.tmpdir(), 'grisaille-photo-bench');
 
-/** The look of the benchmark (the demo "Panchromatic + red-absorbing cyan"). */
-function benchLook(): LookSpectra {
-  return {
-    bareLight: resolveLight({ id: 'tungsten-3200' }),
-    filters: [{ spectrum: resolveFilter({ id: 'cyan-530' }), on: 'lens' }],
-    medium: resolveMedium({ id: 'panchromatic' }),
-    mediumToneId: 'medium.panchromatic',
-    tone: { developmentStops: 0, ratingStops: 0, printGrade: 2, printExposureStops: 0, shadowDetailStops: null, highlightRollOffStops: null, keyZone: 5 },
-    key: null,
-  };
-}
+/** The look of the benchmark (the demo "Panchromatic + red-absorbing cyan"), the photo tests' own. */
+const benchLook = cyanPanchromaticLook;
 
 async function tables() {
   const upsample = await getUpsampleTable(WORK);
