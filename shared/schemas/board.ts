@@ -7,8 +7,11 @@ export const DEFAULT_MERGE_STOPS = 1 / 3;
 export const DEFAULT_MERGE_DELTA_E = 10;
 /** A board shows at most this many looks side by side. */
 export const MAX_BOARD_LOOKS = 4;
-/** At most this many swatches on one board. */
-export const MAX_BOARD_SWATCHES = 500;
+/**
+ * At most this many swatches on one board: a whole production's wardrobe or palette fits, and the board's
+ * tones through four looks still answer in a few hundred ms (the bench's `board_2000x4_ms`).
+ */
+export const MAX_BOARD_SWATCHES = 2000;
 
 const name = itemNameSchema;
 const id = z.number().int().positive();

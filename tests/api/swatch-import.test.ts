@@ -8,7 +8,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startDemoAs, type Agent, type TestApp } from '../helpers/api';
 import { cgatsText, inventedFabric } from '../helpers/cgats';
 import { Swatch } from '../../server/db/entities/swatch.entity';
-import type { BoardView } from '../../shared/schemas/board';
+import { Board } from '../../server/db/entities/board.entity';
+import { MAX_BOARD_SWATCHES, type BoardView } from '../../shared/schemas/board';
 
 /** Reflectance of the flat grey sample, written in the file as 18 (percent); Zone V middle grey (common practice). */
 const GREY_PERCENT = 18;
@@ -134,6 +135,34 @@ describe('refusals write nothing', () => {
     const binary = await costume.post(`${base}/swatches/import`).attach('file', Buffer.from([0x89, 0x50, 0x4e, 0x47, 0, 0, 1]), 'chart.png');
     expect(binary.status).toBe(400);
     expect(binary.body.error.message).toMatch(/not a text file/);
+  });
+
+  it('an import that would take a board past its limit is refused whole (400 naming boardId); one that fits lands', async () => {
+    const made = await costume.post(`${base}/boards`).send({ name: 'Nearly full rail' });
+    expect(made.status).toBe(201);
+    const boardId: number = made.body.board.id;
+    // fill it straight in the database to 3 short of the limit (through the API it would take 2,000 requests)
+    const ds = t.ctx.ds;
+    const board = await ds.getRepository(Board).findOneOrFail({ where: { id: boardId }, relations: { swatches: true, production: true } });
+    const [some] = await ds.getRepository(Swatch).find({ where: { production: { id: board.production.id } }, take: 1 });
+    const { id: _id, ...like } = some;
+    const filler = await ds.getRepository(Swatch).save(
+      Array.from({ length: MAX_BOARD_SWATCHES - 3 }, (_, i) => ds.getRepository(Swatch).create({ ...like, production: board.production, department: 'costume', name: `Filler ${i + 1}` })),
+      { chunk: 200 },
+    );
+    board.swatches = filler;
+    await ds.getRepository(Board).save(board);
+    const before = await count();
+    const r = await upload(costume, `${base}/swatches/import`, FABRICS, { boardId: String(boardId) });
+    expect(r.status).toBe(400);
+    expect(r.body.error.field).toBe('boardId');
+    expect(r.body.error.message).toBe(`boardId: the board holds ${MAX_BOARD_SWATCHES - 3} swatches and a board takes at most ${MAX_BOARD_SWATCHES}; this file adds 4 (room for 3)`);
+    expect(await count()).toBe(before);
+    const three = cgatsText([], nm, [1, 2, 3].map((k) => [`L${k}`, `Lining ${k}`, inventedFabric(nm, 5 * k, 20, 500)] as [string, string, string[]]));
+    const fits = await upload(costume, `${base}/swatches/import`, three, { boardId: String(boardId) });
+    expect(fits.status).toBe(201);
+    const after = await costume.get(`${base}/boards/${boardId}`);
+    expect(after.body.board.swatchIds).toHaveLength(MAX_BOARD_SWATCHES);
   });
 });
 

@@ -1,4 +1,4 @@
-import { Column, Entity, JoinTable, ManyToMany, type Relation } from 'typeorm';
+import { Column, Entity, JoinTable, ManyToMany, RelationId, type Relation } from 'typeorm';
 import { DepartmentItem } from './production-item';
 import type { Swatch } from './swatch.entity';
 
@@ -17,4 +17,10 @@ export class Board extends DepartmentItem {
   @ManyToMany('Swatch', { onDelete: 'CASCADE' })
   @JoinTable({ name: 'board_swatches', joinColumn: { name: 'boardId' }, inverseJoinColumn: { name: 'swatchId' } })
   swatches: Relation<Swatch[]>;
+  /**
+   * The ids of its swatches, read from the join table with every load (one light query): a board of 2,000
+   * swatches would otherwise load 2,000 entities with their spectra to list them. Read-only; set `swatches`
+   * to change the set.
+   */
+  @RelationId((b: Board) => b.swatches) swatchIds: number[];
 }

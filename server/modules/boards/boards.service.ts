@@ -21,7 +21,7 @@ export function boardView(b: Board): BoardView {
     department: b.department,
     notes: b.notes,
     lookIds: b.lookIds,
-    swatchIds: (b.swatches ?? []).map((s) => s.id).sort((x, y) => x - y),
+    swatchIds: [...(b.swatches ? b.swatches.map((s) => s.id) : (b.swatchIds ?? []))].sort((x, y) => x - y),
     mergeStops: b.mergeStops,
     mergeDeltaE: b.mergeDeltaE,
     ...authoredView(b),
@@ -37,9 +37,10 @@ async function checkLooks(em: EntityManager, productionId: number, ids: number[]
   if (i >= 0) throw new InvalidError(`lookIds.${i}: look ${ids[i]} is not in this production`, `lookIds.${i}`);
 }
 
+/** The swatches named, as ids only (all the join table needs), checked to be the production's. */
 async function loadSwatches(em: EntityManager, productionId: number, ids: number[]): Promise<Swatch[]> {
   if (!ids.length) return [];
-  const found = await em.find(Swatch, { where: { id: In(ids), production: { id: productionId } } });
+  const found = await em.find(Swatch, { where: { id: In(ids), production: { id: productionId } }, select: { id: true } });
   const have = new Set(found.map((s) => s.id));
   const i = ids.findIndex((id) => !have.has(id));
   if (i >= 0) throw new InvalidError(`swatchIds.${i}: swatch ${ids[i]} is not in this production`, `swatchIds.${i}`);
@@ -52,15 +53,15 @@ export class BoardsService {
   async list(productionId: number) {
     const rows = await this.ds.getRepository(Board).find({
       where: { production: { id: productionId } },
-      relations: { swatches: true, createdBy: true },
+      relations: { createdBy: true },
       order: { department: 'ASC', name: 'ASC', id: 'ASC' },
     });
     return rows.map(boardView);
   }
 
+  /** A board of the production with its author and its swatches' ids (not the swatches themselves). */
   async entity(productionId: number, id: number, em: EntityManager = this.ds.manager): Promise<Board> {
-    const b = await findInProduction(em, Board, productionId, id, 'Board', { swatches: true, createdBy: true });
-    return b;
+    return findInProduction(em, Board, productionId, id, 'Board', { createdBy: true });
   }
 
   async get(productionId: number, id: number) {

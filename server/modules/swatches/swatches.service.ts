@@ -4,11 +4,12 @@ import { InvalidError } from '../../errors';
 import { previewOf, resolveImport, uploadText, type ImportUpload } from './swatch-import';
 import { authoredView } from '../authored';
 import { findInProduction } from '../../db/in-production';
-import type { DataSource, EntityManager } from 'typeorm';
+import { IsNull, Not, type DataSource, type EntityManager } from 'typeorm';
 import { Swatch } from '../../db/entities/swatch.entity';
 import { Photo } from '../../db/entities/photo.entity';
 import type { Membership } from '../../db/entities/membership.entity';
 import type { Department } from '../../../shared/schemas/roles';
+import { MAX_BOARD_SWATCHES } from '../../../shared/schemas/board';
 import { swatchCreateSchema, swatchImportFieldsSchema, swatchUpdateSchema, type SwatchImportPreview, type SwatchOrigin, type SwatchView } from '../../../shared/schemas/swatch';
 import type { z } from 'zod';
 import { readTable } from '../library/table-input';
@@ -57,7 +58,7 @@ export async function assertPhotoOrigin(em: EntityManager, productionId: number,
 }
 
 /** A swatch for the API; with `table`, its reflectance (measured, or the estimate) is included. */
-export function swatchView(s: Swatch, table?: UpsampleTable): SwatchView {
+export function swatchView(s: Swatch, table?: UpsampleTable, hasReflectance = s.reflectance != null): SwatchView {
   const v: SwatchView = {
     id: s.id,
     name: s.name,
@@ -65,7 +66,7 @@ export function swatchView(s: Swatch, table?: UpsampleTable): SwatchView {
     notes: s.notes,
     origin: s.origin,
     hex: s.hex,
-    spectrum: isModelled(s.origin) ? 'modelled' : s.reflectance ? 'measured' : 'estimated',
+    spectrum: isModelled(s.origin) ? 'modelled' : hasReflectance ? 'measured' : 'estimated',
     lightStops: s.lightStops ?? 0,
     ...authoredView(s),
   };
@@ -79,6 +80,12 @@ export function copyName(name: string): string {
   return `${name.slice(0, 120 - suffix.length).trimEnd()}${suffix}`;
 }
 
+/** The columns a swatch's view needs when its spectrum is not asked for. */
+const LIST_COLUMNS = {
+  id: true, name: true, department: true, notes: true, origin: true, hex: true, lightStops: true, createdAt: true, updatedAt: true,
+  createdBy: { id: true, name: true },
+} as const;
+
 export class SwatchesService {
   constructor(private ds: DataSource, private dataDir: string) {}
 
@@ -86,14 +93,22 @@ export class SwatchesService {
     return getUpsampleTable(this.dataDir);
   }
 
+  /**
+   * The production's swatches (of one department). Without `spectra` the reflectances are not read at all
+   * (a measured one is some 400 numbers; 2,000 of them took most of the list's time), only whether each
+   * swatch has one.
+   */
   async list(productionId: number, opts: { department?: Department; spectra?: boolean } = {}) {
-    const rows = await this.ds.getRepository(Swatch).find({
-      where: { production: { id: productionId }, ...(opts.department ? { department: opts.department } : {}) },
-      relations: { createdBy: true },
-      order: { department: 'ASC', name: 'ASC', id: 'ASC' },
-    });
-    const table = opts.spectra ? await this.table() : undefined;
-    return rows.map((s) => swatchView(s, table));
+    const repo = this.ds.getRepository(Swatch);
+    const where = { production: { id: productionId }, ...(opts.department ? { department: opts.department } : {}) };
+    const order = { department: 'ASC', name: 'ASC', id: 'ASC' } as const;
+    if (opts.spectra) {
+      const table = await this.table();
+      return (await repo.find({ where, relations: { createdBy: true }, order })).map((s) => swatchView(s, table));
+    }
+    const rows = await repo.find({ where, relations: { createdBy: true }, order, select: LIST_COLUMNS });
+    const measured = new Set((await repo.find({ where: { ...where, reflectance: Not(IsNull()) }, select: { id: true } })).map((s) => s.id));
+    return rows.map((s) => swatchView(s, undefined, measured.has(s.id)));
   }
 
   async entity(productionId: number, id: number, em: EntityManager = this.ds.manager): Promise<Swatch> {
@@ -146,7 +161,7 @@ export class SwatchesService {
   private async importTarget(m: Membership, fields: ImportFields, em: EntityManager): Promise<{ board: Board | null; department: Department }> {
     let board: Board | null = null;
     if (fields.boardId !== undefined) {
-      board = await em.findOne(Board, { where: { id: fields.boardId, production: { id: m.production.id } }, relations: { swatches: true } });
+      board = await em.findOne(Board, { where: { id: fields.boardId, production: { id: m.production.id } } });
       if (!board) throw new InvalidError(`boardId: board ${fields.boardId} is not in this production`, 'boardId');
       assertDepartmentAccess(m, board.department, 'boards');
     }
@@ -172,14 +187,13 @@ export class SwatchesService {
     const saved = await this.ds.transaction(async (t) => {
       const { board, department } = await this.importTarget(m, fields, t);
       const { samples } = resolveImport(text, fileName);
+      if (board) assertBoardRoom(board, samples.length);
       const rows: Swatch[] = [];
       for (const r of samples) {
         rows.push(await t.save(Swatch, t.create(Swatch, { production: m.production, department, name: r.name, notes: r.notes, origin: r.origin, hex: r.hex, reflectance: r.reflectance, createdBy: m.user })));
       }
-      if (board) {
-        board.swatches = [...board.swatches, ...rows];
-        await t.save(board);
-      }
+      // onto the board through its join table (the board's other swatches are not loaded)
+      if (board) await t.createQueryBuilder().relation(Board, 'swatches').of(board).add(rows);
       return rows;
     });
     const table = await this.table();
@@ -226,5 +240,13 @@ export class SwatchesService {
       }
       await t.remove(s);
     });
+  }
+}
+
+/** An import onto a board may not take it past the boards' limit (the same one a board's own edit keeps). */
+function assertBoardRoom(board: Board, adding: number): void {
+  const room = MAX_BOARD_SWATCHES - board.swatchIds.length;
+  if (adding > room) {
+    throw new InvalidError(`boardId: the board holds ${board.swatchIds.length} swatches and a board takes at most ${MAX_BOARD_SWATCHES}; this file adds ${adding} (room for ${Math.max(0, room)})`, 'boardId');
   }
 }

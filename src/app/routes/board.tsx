@@ -76,7 +76,7 @@ export default function BoardPage() {
     <>
       <PageHeader
         title={b.name}
-        subtitle={<>{b.department} board · {b.swatchIds.length} swatches · {merges.certain ? <span className="font-medium text-warn">{merges.certain} merge{merges.certain > 1 ? 's' : ''} flagged</span> : 'no certain merges'}{merges.possible > 0 && <> · <span className="text-warn/80">{merges.possible} possible</span></>}{b.notes && <> · {b.notes}</>}</>}
+        subtitle={<>{b.department} board · {b.swatchIds.length.toLocaleString('en')} swatches · {merges.certain ? <span className="font-medium text-warn">{merges.certain.toLocaleString('en')} merge{merges.certain > 1 ? 's' : ''} flagged</span> : 'no certain merges'}{merges.possible > 0 && <> · <span className="text-warn/80">{merges.possible.toLocaleString('en')} possible</span></>}{b.notes && <> · {b.notes}</>}</>}
         actions={<Link to={paths.production(pid).boards()} className="rounded-md px-3 py-1.5 text-sm text-ink-soft hover:bg-paper-sunk">All boards</Link>}
       />
       <Card className="mb-4">

@@ -6,6 +6,13 @@ import { zoneFrac } from '../../../components/ui/range-bar';
 import { signedStops } from '../../../lib/tone-format';
 import { isExact, rangeLabel } from '../../../lib/tone-range';
 import { ZONES } from '../../../lib/zones';
+import { ZoneSpread } from './zone-spread';
+
+/**
+ * Above this many swatches the ruler counts them instead of pinning each (ZoneSpread): six lanes a side hold
+ * a few dozen labels, and a thousand pins per look would be unreadable and slow to lay out.
+ */
+export const RULER_MAX_PINS = 120;
 
 /** Label lanes on each side of the ramp (at least, at most), their spacing, and the ramp's height, px. */
 const MIN_LANES = 3;
@@ -88,6 +95,11 @@ const spanStyle = (r: readonly [number, number]) => {
  * stops and range; off-scale tones sit at the ends with an arrow.
  */
 export function ZoneRuler({ pins, title }: { pins: RulerPin[]; title: string }) {
+  return pins.length > RULER_MAX_PINS ? <ZoneSpread pins={pins} title={title} /> : <PinnedRuler pins={pins} title={title} />;
+}
+
+/** Every swatch pinned and labelled (boards up to RULER_MAX_PINS). */
+function PinnedRuler({ pins, title }: { pins: RulerPin[]; title: string }) {
   const ref = useRef<HTMLDivElement>(null);
   const [width, setWidth] = useState(900);
   const [focus, setFocus] = useState<number | null>(null);
