@@ -1,11 +1,19 @@
-import { useLayoutEffect, useRef, useState, type ReactNode } from 'react';
+import { useEffect, useLayoutEffect, useRef, useState, type ReactNode } from 'react';
 import { GlPreview, type DrawOptions } from '../lib/gl-preview';
 import { paintCpu, type CpuFrame } from '../lib/cpu-preview';
 import { previewEngine } from '../lib/preview-engine';
 import type { LoadedPhoto } from '../hooks/use-loaded-photo';
 import type { TimedLut } from '../hooks/use-preview-lut';
+import type { PreviewQuality } from '../lib/preview-protocol';
 
 export type Renderer = 'gl' | 'cpu';
+
+/**
+ * Resolution of the frames drawn from a moving slider's small table, of the full frame's (a quarter of
+ * the pixels). They are drawn on a canvas of their own laid over the full one (resizing one canvas back
+ * and forth costs a software GPU more than the smaller draw saves) and hidden when the full frame is drawn.
+ */
+export const DRAG_SCALE = 0.4;
 
 /** One latency record: from the change to the frame on screen. */
 export interface PreviewTiming {
@@ -16,6 +24,9 @@ export interface PreviewTiming {
   /** ms of the draw itself */
   draw: number;
   renderer: Renderer;
+  /** 'drag': a moving slider's frame (small table, reduced resolution); 'full': the resting frame */
+  quality: PreviewQuality;
+  /** the frame's full size, px */
   width: number;
   height: number;
 }
@@ -54,6 +65,9 @@ export function LookCanvas({ loaded, size = 'live', timed, options, renderer, la
   const canvas = useRef<HTMLCanvasElement>(null);
   const gl = useRef<GlPreview | null>(null);
   const photoKey = useRef('');
+  const dragCanvas = useRef<HTMLCanvasElement>(null);
+  const dragGl = useRef<GlPreview | null>(null);
+  const dragPhotoKey = useRef('');
   const cpuFrame = useRef<{ key: string; frame: CpuFrame } | null>(null);
   const [failed, setFailed] = useState<string | null>(null);
   const frame = size === 'live' ? loaded.live : loaded.small;
@@ -63,7 +77,27 @@ export function LookCanvas({ loaded, size = 'live', timed, options, renderer, la
   useLayoutEffect(() => () => {
     gl.current?.dispose();
     gl.current = null;
+    dragGl.current?.dispose();
+    dragGl.current = null;
   }, []);
+
+  // the drag canvas's context and photo made ahead, after the frame is on screen, so a slider's first move does not pay for them
+  useEffect(() => {
+    const small = dragCanvas.current;
+    if (renderer !== 'gl' || !small) return;
+    const id = setTimeout(() => {
+      try {
+        dragGl.current ??= new GlPreview(small);
+        if (dragPhotoKey.current !== frameKey) {
+          dragGl.current.setPhoto(frame.bitmap, frame.bitmap.width);
+          dragPhotoKey.current = frameKey;
+        }
+      } catch {
+        /* drawn (or its failure shown) when a slider moves */
+      }
+    }, 100);
+    return () => clearTimeout(id);
+  }, [frame, frameKey, renderer]);
 
   useLayoutEffect(() => {
     const c = canvas.current;
@@ -72,12 +106,25 @@ export function LookCanvas({ loaded, size = 'live', timed, options, renderer, la
     const report = (tableMs: number) => {
       if (!timed || timedAlready.has(timed)) return;
       timedAlready.add(timed);
-      const t: PreviewTiming = { total: performance.now() - timed.requestedAt, table: tableMs, draw: performance.now() - started, renderer, width, height };
+      const t: PreviewTiming = { total: performance.now() - timed.requestedAt, table: tableMs, draw: performance.now() - started, renderer, quality: timed.lut.quality, width, height };
       record(t);
       onTiming?.(t);
     };
     if (renderer === 'gl') {
       try {
+        const small = dragCanvas.current;
+        if (timed?.lut.quality === 'drag' && small) {
+          if (!dragGl.current) dragGl.current = new GlPreview(small);
+          if (dragPhotoKey.current !== frameKey) {
+            dragGl.current.setPhoto(frame.bitmap, frame.bitmap.width); // point samples: one texel a pixel, the cheapest read
+            dragPhotoKey.current = frameKey;
+          }
+          dragGl.current.setLut(timed.lut);
+          if (dragGl.current.draw(options)) report(timed.lut.ms);
+          small.hidden = false;
+          setFailed(null);
+          return;
+        }
         if (!gl.current) gl.current = new GlPreview(c);
         if (photoKey.current !== frameKey) {
           gl.current.setPhoto(frame.bitmap);
@@ -85,6 +132,7 @@ export function LookCanvas({ loaded, size = 'live', timed, options, renderer, la
         }
         if (timed) gl.current.setLut(timed.lut);
         if (gl.current.draw(options) && timed) report(timed.lut.ms);
+        if (small) small.hidden = true;
         setFailed(null);
       } catch (e) {
         setFailed((e as Error).message);
@@ -130,7 +178,11 @@ export function LookCanvas({ loaded, size = 'live', timed, options, renderer, la
           aria-label={label}
           data-renderer={renderer}
           data-lut-key={timed?.lut.key ?? ''}
+          data-quality={timed?.lut.quality ?? ''}
         />
+        {renderer === 'gl' && size === 'live' && (
+          <canvas ref={dragCanvas} width={Math.round(width * DRAG_SCALE)} height={Math.round(height * DRAG_SCALE)} className="pointer-events-none absolute inset-0 h-full w-full" aria-hidden="true" data-testid="preview-drag-frame" hidden />
+        )}
         {children}
       </div>
       {failed && <p role="alert" className="mt-1 text-xs text-warn">The preview could not be drawn: {failed}</p>}

@@ -40,7 +40,9 @@ export function PhotoPreview({ pid, photo, look, looks, loaded, timed, error, lo
   const [mode, setMode] = useState<PreviewMode>('look');
   const [wipe, setWipe] = useState(0.5);
   const [compare, setCompare] = useCompareSelection(looks);
-  const [timing, setTiming] = useState<PreviewTiming | null>(null);
+  // a change's first frame, and its resting full frame when the first was a moving slider's
+  const [timing, setTiming] = useState<{ first: PreviewTiming; full?: PreviewTiming } | null>(null);
+  const onTiming = (t: PreviewTiming) => setTiming((s) => (t.quality === 'full' && s?.first.quality === 'drag' && !s.full ? { first: s.first, full: t } : { first: t }));
   const [unsure, setUnsure] = useState(false);
   const [shaded, setShaded] = useState<number | null>(null);
   const overlay = unsure && view !== 'compare';
@@ -72,7 +74,7 @@ export function PhotoPreview({ pid, photo, look, looks, loaded, timed, error, lo
           options={{ mode, wipe: view === 'wipe' ? wipe : null }}
           renderer={renderer}
           label={`${photo.name} through ${look?.name ?? 'a look'}${view === 'wipe' ? ', wiped against the colour original' : ''}`}
-          onTiming={setTiming}
+          onTiming={onTiming}
         >
           {overlay && uncertainty.table && <UncertaintyLayer image={loaded.live.image} table={uncertainty.table} wipe={view === 'wipe' ? wipe : null} onShaded={(r) => setShaded(r.shaded)} />}
           {view === 'look' && <RegionOverlay width={loaded.image.width} height={loaded.image.height} rect={rect} onRect={onRect} />}
@@ -85,7 +87,7 @@ export function PhotoPreview({ pid, photo, look, looks, loaded, timed, error, lo
       {overlay && <div className="mt-3 max-w-xl"><UncertaintyLegend status={uncertainty.status} pending={uncertainty.pending} lookName={look?.name ?? 'this look'} shaded={uncertainty.table ? shaded : null} error={uncertainty.error} /></div>}
       {timing && view !== 'compare' && (
         <p className="mt-2 text-xs text-ink-mute tabular" data-testid="preview-timing">
-          Preview {timing.width} × {timing.height} px of a {uprightSize(photo).width} × {uprightSize(photo).height} px photo, {renderer === 'gl' ? 'WebGL2' : 'worker (no WebGL2)'}: {Math.round(timing.total)} ms from the change (table {Math.round(timing.table)} ms).
+          Preview {timing.first.width} × {timing.first.height} px of a {uprightSize(photo).width} × {uprightSize(photo).height} px photo, {renderer === 'gl' ? 'WebGL2' : 'worker (no WebGL2)'}: {Math.round(timing.first.total)} ms from the change (table {Math.round(timing.first.table)} ms){timing.full ? `, the full frame ${Math.round(timing.full.total)} ms once the slider rested` : ''}.
         </p>
       )}
     </>

@@ -1,4 +1,5 @@
 import { useEffect, useMemo, useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
 import type { LookView } from '../../../../shared/schemas/look';
 import type { PhotoView } from '../../../../shared/schemas/photo';
 import { usePhotoLook } from '../api/get-photo-look';
@@ -7,6 +8,7 @@ import { readRegion, type Rect } from '../lib/region';
 import { useLoadedPhoto } from './use-loaded-photo';
 import { uprightSize } from '../lib/photo-size';
 import { usePreviewLut } from './use-preview-lut';
+import { chooseRenderer } from '../lib/renderer';
 
 /**
  * One photo through one look while it is retuned: the live edits, the sampled region and its reading, the
@@ -25,7 +27,9 @@ export function usePhotoSession(pid: number, photo: PhotoView | undefined, look:
 
   const photoLook = usePhotoLook(pid, look?.id ?? 0);
   const { loaded, error: loadError } = useLoadedPhoto(photo);
-  const { timed, error: lutError } = usePreviewLut(photoLook.data?.look, edits.e, edits.at);
+  // a moving slider's small tables for the GPU only (the page's renderer, as the page chooses it)
+  const [search] = useSearchParams();
+  const { timed, error: lutError } = usePreviewLut(photoLook.data?.look, edits.e, edits.at, chooseRenderer(search.get('renderer')) === 'gl');
   const reading = useMemo(
     () => (rect && loaded && timed && photo ? readRegion(loaded.image, rect, timed.lut, uprightSize(photo)) : null),
     [rect, loaded, timed, photo],

@@ -1,9 +1,11 @@
 /**
  * The live preview on the GPU (WebGL2): the photo as a texture of sRGB code values and the look's
- * table as a two-channel 3-D texture (grey and stops at each node; hardware trilinear interpolation);
- * one full-screen pass with one table read per pixel. Measured in a headless browser's software GPU, a
- * grey node table draws in about two thirds of the time of stops followed by a 1-D tone texture, and
- * the zone map is its own program so the grey view does not pay for it.
+ * table as 3-D textures (hardware trilinear interpolation): the grey at each node for the grey view, the
+ * stops for the zone map, each a 16-bit code in two 8-bit channels (shared/photo/preview-lut.ts: a
+ * software GPU filters 8-bit textures 2–3× faster than half floats); one full-screen pass with one table
+ * read per pixel. Measured in a headless browser's software GPU, a grey node table draws in about two
+ * thirds of the time of stops followed by a 1-D tone texture, and the zone map is its own program so the
+ * grey view does not pay for it.
  * Views: the look's grey, the colour original, or the zone map (our own style: each zone in its step
  * of the grey ramp, contour lines in the accent colour between zones, warning hatching where the tone
  * falls off the scale). A wipe shows the original left of a line (the line itself is drawn by the page).
@@ -28,9 +30,16 @@ precision highp sampler3D;
 uniform sampler2D uPhoto;
 uniform sampler3D uLut;
 uniform float uLutSize;
+uniform float uStopsMin;
+uniform float uStopsRange;
 uniform float uWipe;
 in vec2 vUv;
 out vec4 outColour;
+/** the table's 16-bit code (0..1) at sRGB-encoded c, from its (high, low) byte channels */
+float lut16(vec3 c) {
+  vec2 hl = texture(uLut, (c * (uLutSize - 1.0) + 0.5) / uLutSize).rg;
+  return (256.0 * hl.r + hl.g) / 257.0;
+}
 `;
 
 /** Grey (or the original where the wipe or the mode says so). */
@@ -39,7 +48,7 @@ uniform int uOriginal;
 void main() {
   vec3 c = texture(uPhoto, vUv).rgb;
   if (uOriginal == 1 || vUv.x < uWipe) { outColour = vec4(c, 1.0); return; }
-  outColour = vec4(vec3(texture(uLut, (c * (uLutSize - 1.0) + 0.5) / uLutSize).r), 1.0);
+  outColour = vec4(vec3(lut16(c)), 1.0);
 }`;
 
 /** The zone map. */
@@ -52,7 +61,7 @@ void main() {
   // zones of a slightly smoothed photo (a coarser mip level), so grain does not fray the contours
   vec3 c = texture(uPhoto, vUv).rgb;
   vec3 m = textureLod(uPhoto, vUv, 1.5).rgb;
-  float z = 5.0 + texture(uLut, (m * (uLutSize - 1.0) + 0.5) / uLutSize).g + uOffset;
+  float z = 5.0 + uStopsMin + lut16(m) * uStopsRange + uOffset;
   float w = z - 0.5;
   float edge = abs(w - floor(w + 0.5)) / max(fwidth(w), 1e-4);
   if (vUv.x < uWipe) { outColour = vec4(c, 1.0); return; }
@@ -94,7 +103,9 @@ export class GlPreview {
   private grey: Program;
   private zones: Program;
   private photo: WebGLTexture;
-  private lutTex: WebGLTexture;
+  /** grey codes (the grey view), stops codes (the zone map) */
+  private greyTex: WebGLTexture;
+  private stopsTex: WebGLTexture;
   /** how the photo is read: 1:1 for the grey, mipmapped for the zone map */
   private exact: WebGLSampler;
   private smooth: WebGLSampler;
@@ -117,7 +128,8 @@ export class GlPreview {
     gl.useProgram(this.zones.prog);
     gl.uniform3fv(this.zones.u.uZones, zones);
     this.photo = gl.createTexture()!;
-    this.lutTex = gl.createTexture()!;
+    this.greyTex = gl.createTexture()!;
+    this.stopsTex = gl.createTexture()!;
     this.exact = gl.createSampler()!;
     this.smooth = gl.createSampler()!;
     for (const [sm, min, mag] of [[this.exact, gl.NEAREST, gl.NEAREST], [this.smooth, gl.LINEAR_MIPMAP_LINEAR, gl.LINEAR]] as const) {
@@ -140,7 +152,7 @@ export class GlPreview {
     gl.enableVertexAttribArray(loc);
     gl.vertexAttribPointer(loc, 2, gl.FLOAT, false, 0, 0);
     const u: Record<string, WebGLUniformLocation | null> = {};
-    for (const n of ['uPhoto', 'uLut', 'uLutSize', 'uWipe', ...extra]) u[n] = gl.getUniformLocation(prog, n);
+    for (const n of ['uPhoto', 'uLut', 'uLutSize', 'uWipe', 'uStopsMin', 'uStopsRange', ...extra]) u[n] = gl.getUniformLocation(prog, n);
     gl.uniform1i(u.uPhoto, 0);
     gl.uniform1i(u.uLut, 1);
     return { prog, u };
@@ -155,8 +167,8 @@ export class GlPreview {
     if (target === gl.TEXTURE_3D) gl.texParameteri(target, gl.TEXTURE_WRAP_R, gl.CLAMP_TO_EDGE);
   }
 
-  /** The photo at the canvas's size (code values as they are: no colour conversion, no premultiplication; read 1:1). */
-  setPhoto(img: ImageBitmap | HTMLImageElement) {
+  /** The photo at the frame's size, `width` px (code values as they are: no colour conversion, no premultiplication; read 1:1). */
+  setPhoto(img: ImageBitmap | HTMLImageElement, width: number = this.canvas.width) {
     const gl = this.gl;
     gl.activeTexture(gl.TEXTURE0);
     gl.bindTexture(gl.TEXTURE_2D, this.photo);
@@ -164,40 +176,44 @@ export class GlPreview {
     gl.pixelStorei(gl.UNPACK_PREMULTIPLY_ALPHA_WEBGL, false);
     gl.texImage2D(gl.TEXTURE_2D, 0, gl.RGBA8, gl.RGBA, gl.UNSIGNED_BYTE, img);
     gl.generateMipmap(gl.TEXTURE_2D);
-    gl.samplerParameteri(this.exact, gl.TEXTURE_MIN_FILTER, img.width === this.canvas.width ? gl.NEAREST : gl.LINEAR);
-    gl.samplerParameteri(this.exact, gl.TEXTURE_MAG_FILTER, img.width === this.canvas.width ? gl.NEAREST : gl.LINEAR);
+    gl.samplerParameteri(this.exact, gl.TEXTURE_MIN_FILTER, img.width === width ? gl.NEAREST : gl.LINEAR);
+    gl.samplerParameteri(this.exact, gl.TEXTURE_MAG_FILTER, img.width === width ? gl.NEAREST : gl.LINEAR);
     this.hasPhoto = true;
   }
 
-  /** The look's table: grey and stops at each node, as a two-channel 3-D half-float texture. */
+  /** The look's table: grey and stops at each node, each as a 3-D texture of 16-bit codes in two bytes. */
   setLut(lut: PreviewLut) {
     const gl = this.gl;
     if (this.lut?.key === lut.key) return;
-    const rg = new Float32Array(lut.stops.length * 2);
-    for (let i = 0; i < lut.stops.length; i++) {
-      rg[2 * i] = lut.grey[i];
-      rg[2 * i + 1] = lut.stops[i];
-    }
-    gl.activeTexture(gl.TEXTURE1);
-    gl.bindTexture(gl.TEXTURE_3D, this.lutTex);
     gl.pixelStorei(gl.UNPACK_ALIGNMENT, 1);
-    gl.texImage3D(gl.TEXTURE_3D, 0, gl.RG16F, lut.size, lut.size, lut.size, 0, gl.RG, gl.FLOAT, rg);
-    this.texParams(gl.TEXTURE_3D, gl.LINEAR);
+    for (const [tex, data] of [[this.greyTex, lut.gpu.grey], [this.stopsTex, lut.gpu.stops]] as const) {
+      gl.activeTexture(gl.TEXTURE1);
+      gl.bindTexture(gl.TEXTURE_3D, tex);
+      gl.texImage3D(gl.TEXTURE_3D, 0, gl.RG8, lut.size, lut.size, lut.size, 0, gl.RG, gl.UNSIGNED_BYTE, data);
+      this.texParams(gl.TEXTURE_3D, gl.LINEAR);
+    }
     this.lut = lut;
   }
 
-  /** Draws, and waits for the frame (a one-pixel read) so the caller can time it. */
+  /** Draws at the canvas's size, and waits for the frame (a one-pixel read) so the caller can time it. */
   draw(o: DrawOptions): boolean {
     if (!this.hasPhoto || (!this.lut && o.mode !== 'original')) return false;
     const gl = this.gl;
+    const w = this.canvas.width;
+    const h = this.canvas.height;
     const p = o.mode === 'zones' ? this.zones : this.grey;
     gl.useProgram(p.prog);
     gl.bindSampler(0, o.mode === 'zones' ? this.smooth : this.exact);
-    gl.viewport(0, 0, this.canvas.width, this.canvas.height);
+    gl.activeTexture(gl.TEXTURE1);
+    gl.bindTexture(gl.TEXTURE_3D, o.mode === 'zones' ? this.stopsTex : this.greyTex);
+    gl.viewport(0, 0, w, h);
     gl.uniform1f(p.u.uLutSize, this.lut?.size ?? 2);
     gl.uniform1f(p.u.uWipe, o.wipe ?? -1);
-    if (o.mode === 'zones') gl.uniform1f(p.u.uOffset, this.lut?.tone.offsetStops ?? 0);
-    else gl.uniform1i(p.u.uOriginal, o.mode === 'original' ? 1 : 0);
+    if (o.mode === 'zones') {
+      gl.uniform1f(p.u.uOffset, this.lut?.tone.offsetStops ?? 0);
+      gl.uniform1f(p.u.uStopsMin, this.lut?.gpu.stopsMin ?? 0);
+      gl.uniform1f(p.u.uStopsRange, this.lut ? this.lut.gpu.stopsMax - this.lut.gpu.stopsMin : 1);
+    } else gl.uniform1i(p.u.uOriginal, o.mode === 'original' ? 1 : 0);
     gl.drawArrays(gl.TRIANGLE_STRIP, 0, 4);
     gl.readPixels(0, 0, 1, 1, gl.RGBA, gl.UNSIGNED_BYTE, new Uint8Array(4));
     return true;
@@ -206,7 +222,8 @@ export class GlPreview {
   dispose() {
     const gl = this.gl;
     gl.deleteTexture(this.photo);
-    gl.deleteTexture(this.lutTex);
+    gl.deleteTexture(this.greyTex);
+    gl.deleteTexture(this.stopsTex);
     gl.deleteProgram(this.grey.prog);
     gl.deleteProgram(this.zones.prog);
     gl.deleteSampler(this.exact);

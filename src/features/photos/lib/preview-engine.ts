@@ -4,10 +4,15 @@
  */
 import type { PhotoLookView } from '../../../../shared/schemas/photo';
 import { editsKey, type LookEdits } from './look-edits';
-import type { FromWorker, PreviewLut, ToWorker } from './preview-protocol';
+import type { FromWorker, PreviewLut, PreviewQuality, ToWorker } from './preview-protocol';
 
 /** Nodes per axis of the preview's table (shared/photo/exposure-lut.ts PREVIEW_LUT_SIZE). */
 export const PREVIEW_SIZE = 33;
+/**
+ * Nodes per axis while a slider moves: 13³ computes 12 % of the engine's node exposures and builds in a
+ * few ms (shared/photo/preview-lut.ts); the resting frame gets the full table.
+ */
+export const DRAG_SIZE = 13;
 
 type Pending = { resolve: (v: never) => void; reject: (e: Error) => void };
 
@@ -38,12 +43,20 @@ export class PreviewEngine {
     });
   }
 
-  /** The table of a look with live edits (from the cache when it was built already). */
-  async lut(view: PhotoLookView, edits: LookEdits): Promise<PreviewLut> {
-    const key = editsKey(view, edits);
+  /** The full table of these edits when it was built already. */
+  cached(view: PhotoLookView, edits: LookEdits): PreviewLut | undefined {
+    return this.luts.get(editsKey(view, edits));
+  }
+
+  /** The table of a look with live edits (from the cache when it was built already): full, or the small one for a moving slider. */
+  async lut(view: PhotoLookView, edits: LookEdits, quality: PreviewQuality = 'full'): Promise<PreviewLut> {
+    const full = this.cached(view, edits);
+    if (full) return full;
+    const key = quality === 'full' ? editsKey(view, edits) : `${editsKey(view, edits)}|${DRAG_SIZE}`;
     const hit = this.luts.get(key);
     if (hit) return hit;
-    const r = await this.send<Extract<FromWorker, { type: 'lut' }>>({ type: 'look', id: this.next++, key, view, edits, size: PREVIEW_SIZE });
+    const size = quality === 'full' ? PREVIEW_SIZE : DRAG_SIZE;
+    const r = await this.send<Extract<FromWorker, { type: 'lut' }>>({ type: 'look', id: this.next++, key, view, edits, size });
     this.luts.set(key, r.lut);
     if (this.luts.size > 24) this.luts.delete(this.luts.keys().next().value!);
     return r.lut;

@@ -8,10 +8,11 @@ import { decodeUpsampleTable, type UpsampleTable } from '../../../../shared/spec
 import { resolveFilter, resolveLight } from '../../../../shared/spectral/compute';
 import { makeSpectrum } from '../../../../shared/spectral/spectrum';
 import { nodeReflectances } from '../../../../shared/spectral/node-spectra';
-import { composeLook, type LookSpectra } from '../../../../shared/look/compose-look';
-import { buildPhotoLut, photoToneModel } from '../../../../shared/photo/look-photo-model';
+import type { LookSpectra } from '../../../../shared/look/compose-look';
+import { previewGpuTable, previewLook, previewStopsLut, type PreviewToneCache } from '../../../../shared/photo/preview-lut';
+import { PREVIEW_LUT_SIZE } from '../../../../shared/photo/exposure-lut';
 import { planLut8, applyLut8, type LutPlan8 } from '../../../../shared/photo/apply-lut';
-import { greyOfStops, type ToneCurveTable } from '../../../../shared/look/tone-curve-table';
+import type { ToneCurveTable } from '../../../../shared/look/tone-curve-table';
 import { api } from '../../../lib/api-client';
 import type { ExposureLut } from '../../../../shared/photo/exposure-lut';
 import type { PhotoLookView } from '../../../../shared/schemas/photo';
@@ -55,26 +56,31 @@ function spectraOf(view: PhotoLookView, e: LookEdits): LookSpectra {
 const built: { key: string; lut: ExposureLut; tone: ToneCurveTable; plan?: LutPlan8; zonePlan?: LutPlan8 }[] = [];
 const photos = new Map<string, { width: number; height: number; rgba: Uint8ClampedArray }>();
 
+/** Tone tables of key-less looks, kept across edits of the light and filters (shared/photo/preview-lut.ts). */
+const tones: PreviewToneCache = new Map();
+
 async function onLook(m: Extract<ToWorker, { type: 'look' }>) {
   const { upsample } = await loadTables();
   const t0 = performance.now();
-  const model = photoToneModel(composeLook(spectraOf(m.view, m.edits)), upsample);
-  const lut = buildPhotoLut(model, m.size);
-  const tone = model.tone;
+  const look = previewLook(spectraOf(m.view, m.edits), upsample, tones);
+  // the full table touches most nodes (filled at once); a dragging slider's small one only its cells' nodes
+  const lut = previewStopsLut(upsample, look.nodes, m.size, m.size >= PREVIEW_LUT_SIZE);
+  const tone = look.tone;
   built.unshift({ key: m.key, lut, tone });
   built.length = Math.min(built.length, 24);
   for (const old of built.slice(2)) old.plan = old.zonePlan = undefined;
-  const grey = new Float32Array(lut.stops.length);
-  for (let i = 0; i < grey.length; i++) grey[i] = greyOfStops(tone, lut.stops[i]);
+  const { gpu, grey } = previewGpuTable(lut, tone);
   const out: PreviewLut = {
     key: m.key,
     size: lut.size,
+    quality: m.size >= PREVIEW_LUT_SIZE ? 'full' : 'drag',
     stops: lut.stops.slice(),
     grey,
+    gpu,
     tone: { minStops: tone.minStops, step: tone.step, grey: tone.grey.slice(), offsetStops: tone.offsetStops },
     ms: performance.now() - t0,
   };
-  post({ type: 'lut', id: m.id, lut: out }, [out.stops.buffer, out.grey.buffer, out.tone.grey.buffer]);
+  post({ type: 'lut', id: m.id, lut: out }, [out.stops.buffer, out.grey.buffer, out.tone.grey.buffer, gpu.grey.buffer, gpu.stops.buffer]);
 }
 
 /** Zone index 0..12 per pixel for the fallback's zone map: 0 = under zone 0, 1..11 = zones 0..X, 12 = over X. */
