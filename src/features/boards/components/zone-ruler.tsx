@@ -1,12 +1,11 @@
 import { useLayoutEffect, useRef, useState } from 'react';
-import type { SwatchTone } from '../../../../shared/schemas/board';
-import type { MergeCertainty } from '../lib/board-rows';
 import { zoneFromStops } from '../../../../shared/tone/zones';
 import { zoneFrac } from '../../../components/ui/range-bar';
 import { signedStops } from '../../../lib/tone-format';
 import { isExact, rangeLabel } from '../../../lib/tone-range';
 import { ZONES } from '../../../lib/zones';
-import { ZoneSpread } from './zone-spread';
+import { ZoneSpread, type RulerPin } from './zone-spread';
+export type { RulerPin };
 
 /**
  * Above this many swatches the ruler counts them instead of pinning each (ZoneSpread): six lanes a side hold
@@ -24,14 +23,6 @@ const RAMP_PX = 24;
 /** Stem of the first lane, px (room for the range bar between the dot and the label). */
 const STEM_PX = 10;
 
-export interface RulerPin {
-  id: number;
-  name: string;
-  hex: string;
-  tone: SwatchTone;
-  /** how sure its merge is, when it merges with another swatch through this look */
-  merged: MergeCertainty | null;
-}
 
 /** Rough label width for a name at 10 px Inter, px (enough to keep neighbours apart). */
 const labelWidth = (name: string) => Math.min(128, 5.4 * name.length + 12);

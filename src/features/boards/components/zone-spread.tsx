@@ -1,6 +1,17 @@
-import type { RulerPin } from './zone-ruler';
+import type { SwatchTone } from '../../../../shared/schemas/board';
+import type { MergeCertainty } from '../lib/board-rows';
 import { zoneFrac } from '../../../components/ui/range-bar';
 import { ZONES } from '../../../lib/zones';
+
+/** A swatch on a zone ruler (or counted in its spread). */
+export interface RulerPin {
+  id: number;
+  name: string;
+  hex: string;
+  tone: SwatchTone;
+  /** how sure its merge is, when it merges with another swatch through this look */
+  merged: MergeCertainty | null;
+}
 
 /** Bins per zone of the spread (a third of a zone is a third of a stop). */
 const BINS_PER_ZONE = 3;
