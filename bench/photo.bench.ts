@@ -18,6 +18,28 @@
  *   (NOISE_RUNS pairs; target ≤ 2): many more colours to meet, so the per-colour computation counts;
  * - render_peak_ratio: peak memory of the 24-megapixel render over sharp's greyscale of the same file,
  *   each in a fresh process (target ≤ 1.5), and render_peak_ratio_small the same on the small photo.
+ * - render_main_stall_ms: the longest the main thread's event loop waited during one 24-megapixel render
+ *   (its look composed in it), median of RUNS: how long the API could not answer (the pass runs in
+ *   worker threads; before, the main thread did half of it: 115–270 ms);
+ * - render_ratio_photos: the same ratio over a set of real photographs (target ≤ 1.25), the median of
+ *   each photo's median ratio over PHOTO_RUNS pairs (each photo's own as render_ratio_photo_<name>);
+ *   render_ratio_photo_noise the same on one of them with the camera-like noise above (target ≤ 2).
+ *   Each photograph is upscaled with sharp (Lanczos, cropped to 3 : 2) to 6000 × 4000 and written as an
+ *   sRGB JPEG, quality 92, once into the bench's cache folder. They come from a Debian package, fetched
+ *   with `apt-get download` and unpacked with `dpkg-deb -x` into that folder (the package is not
+ *   installed; the photos are not committed); where apt is not there the bench says it skipped them and
+ *   why. The set (package python3-skimage 0.19.3, folder /usr/lib/python3/dist-packages/skimage/data;
+ *   /usr/share/doc/python3-skimage/copyright: "Files: * … License: BSD-3-Clause", the scikit-image
+ *   team; each photo's own terms as the package's skimage/data/_fetchers.py states them):
+ *     astronaut.png        512 × 512, a portrait in a flight suit — public domain ("no known copyright
+ *                          restrictions, released into the public domain")
+ *     chelsea.png          451 × 300, a cat's face — CC0 by the photographer
+ *     coffee.png           600 × 400, a cup of coffee on a wooden table — CC0 by the photographer
+ *     motorcycle_left.png  741 × 500, a motorcycle in a garage (left view of a stereo pair) — BSD-3-Clause
+ *                          (the copyright file's "Files: *"; the module names no other terms)
+ *     rocket.jpg           640 × 427, a launch pad at dusk — public domain (released by its maker)
+ *   (checked by eye: all five are photographs; the package's other colour images are drawings, a
+ *   micrograph, a retina and a telescope image, left out). The noisy case is coffee.png.
  * Also, for the record: the same against a single-band greyscale JPEG (`…_bw`), a render whose look
  * table is cached (as for a look rendered before), and 16-bit PNG output.
  * Medians of interleaved runs; ratios are medians of the ratio within each pair (the machine is shared).
@@ -28,6 +50,7 @@ import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
 import { fileURLToPath } from 'node:url';
+import { monitorEventLoopDelay } from 'node:perf_hooks';
 import { DEMO_SCENES, demoSceneJpeg } from '../server/db/seed-content/photos';
 import { RENDER_JPEG, RENDER_PNG, buildRenderTable, renderPhoto } from '../server/services/photo-render';
 import { getUpsampleTable } from '../server/services/upsample-table';
@@ -96,14 +119,14 @@ function childPeak(what: 'render' | 'greyscale', file: string): { peakMb: number
 type Record = (name: string, value: number, unit: string) => void;
 
 /**
- * The 24-megapixel still life with camera-like noise, written once (a fixed seed: the same file every run):
+ * The 24-megapixel still life (or `from`) with camera-like noise, written once (a fixed seed: the same file every run):
  * Gaussian, independent per channel (chroma noise, as a sensor's at high ISO gives), variance growing
  * with the signal like shot noise on a read-noise floor, σ² = 9 + v / 4 in 8-bit codes (σ 3 to 8.6 codes).
  */
-async function noisyImage(): Promise<string> {
-  const file = path.join(WORK, `still-life-noise-${WIDTH}x${HEIGHT}.jpg`);
+async function noisyImage(from?: string, name = 'still-life-noise'): Promise<string> {
+  const file = path.join(WORK, `${name}-${WIDTH}x${HEIGHT}.jpg`);
   if (fs.existsSync(file)) return file;
-  const { data, info } = await sharp(await image()).raw().toBuffer({ resolveWithObject: true });
+  const { data, info } = await sharp(from ?? (await image())).raw().toBuffer({ resolveWithObject: true });
   let seed = 0x2545f491;
   const uniform = () => {
     seed ^= seed << 13;
@@ -119,6 +142,71 @@ async function noisyImage(): Promise<string> {
   }
   fs.writeFileSync(file, await sharp(data, { raw: { width: info.width, height: info.height, channels: info.channels } }).jpeg({ quality: 92 }).toBuffer());
   return file;
+}
+
+/** The set of real photographs (see the header for each one's licence). */
+const PHOTO_PACKAGE = 'python3-skimage';
+const PHOTO_DIR = 'usr/lib/python3/dist-packages/skimage/data';
+const PHOTOS = ['astronaut.png', 'chelsea.png', 'coffee.png', 'motorcycle_left.png', 'rocket.jpg'];
+const NOISY_PHOTO = 'coffee.png';
+const PHOTO_RUNS = 3;
+
+/** The package's files unpacked into the bench's cache folder (fetched once); a reason when apt cannot. */
+function debianPhotos(): { dir: string } | { skipped: string } {
+  const root = path.join(WORK, 'debian', PHOTO_PACKAGE);
+  const dir = path.join(root, PHOTO_DIR);
+  if (PHOTOS.every((f) => fs.existsSync(path.join(dir, f)))) return { dir };
+  fs.mkdirSync(root, { recursive: true });
+  const get = spawnSync('apt-get', ['download', PHOTO_PACKAGE], { cwd: root, encoding: 'utf8', timeout: 300_000 });
+  if (get.error || get.status !== 0) return { skipped: `apt-get download ${PHOTO_PACKAGE} failed: ${get.error?.message ?? get.stderr.trim().split('\n').pop()}` };
+  const deb = fs.readdirSync(root).find((f) => f.startsWith(`${PHOTO_PACKAGE}_`) && f.endsWith('.deb'));
+  if (!deb) return { skipped: `apt-get download ${PHOTO_PACKAGE} left no .deb file` };
+  const x = spawnSync('dpkg-deb', ['-x', deb, '.'], { cwd: root, encoding: 'utf8' });
+  if (x.error || x.status !== 0) return { skipped: `dpkg-deb -x failed: ${x.error?.message ?? x.stderr.trim()}` };
+  fs.rmSync(path.join(root, deb), { force: true });
+  const missing = PHOTOS.filter((f) => !fs.existsSync(path.join(dir, f)));
+  return missing.length ? { skipped: `the package holds no ${missing.join(', ')}` } : { dir };
+}
+
+/** A photograph upscaled to 24 megapixels (Lanczos, cropped to 3 : 2), as an sRGB JPEG, written once. */
+async function photo24(dir: string, name: string): Promise<string> {
+  const file = path.join(WORK, `photo-${path.parse(name).name}-${WIDTH}x${HEIGHT}.jpg`);
+  if (!fs.existsSync(file)) {
+    const jpeg = await sharp(path.join(dir, name)).flatten({ background: '#ffffff' }).resize(WIDTH, HEIGHT, { fit: 'cover', kernel: 'lanczos3' }).toColourspace('srgb').jpeg({ quality: 92 }).toBuffer();
+    fs.writeFileSync(file, jpeg);
+  }
+  return file;
+}
+
+/** Render / sharp's greyscale of one file in interleaved pairs: the median ratio. */
+async function ratioOf(file: string, runs: number, t: { upsample: UpsampleTable; reflectances: Float32Array }): Promise<number> {
+  const ratios: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const r = await time(() => render(file, 'jpeg', t));
+    const g = await time(() => sharp(file).greyscale().jpeg(RENDER_JPEG).toBuffer());
+    ratios.push(r / g);
+  }
+  return median(ratios);
+}
+
+/** The real photographs at 24 megapixels, and one of them with noise. */
+export async function photos(record: Record): Promise<void> {
+  const got = debianPhotos();
+  if ('skipped' in got) {
+    console.log(`render_ratio_photos: SKIPPED (${got.skipped})`);
+    return;
+  }
+  const t = await tables();
+  const ratios: number[] = [];
+  for (const name of PHOTOS) {
+    const file = await photo24(got.dir, name);
+    const ratio = await ratioOf(file, PHOTO_RUNS, t);
+    record(`render_ratio_photo_${path.parse(name).name}`, ratio, 'x');
+    ratios.push(ratio);
+  }
+  record('render_ratio_photos', median(ratios), 'x');
+  const noisy = await noisyImage(await photo24(got.dir, NOISY_PHOTO), `photo-${path.parse(NOISY_PHOTO).name}-noise`);
+  record('render_ratio_photo_noise', await ratioOf(noisy, PHOTO_RUNS, t), 'x');
 }
 
 /** The noisy 24-megapixel photo: render and sharp's greyscale in interleaved pairs. */
@@ -182,8 +270,13 @@ export default async function run(record: Record): Promise<void> {
   const bw: number[] = [];
   const ratio: number[] = [];
   const ratioBw: number[] = [];
+  const stall: number[] = [];
   for (let i = 0; i < RUNS; i++) {
+    const loop = monitorEventLoopDelay({ resolution: 1 });
+    loop.enable();
     r.push(await time(() => render(file, 'jpeg', t)));
+    loop.disable();
+    stall.push(loop.max / 1e6);
     g.push(await time(() => sharp(file).greyscale().jpeg(RENDER_JPEG).toBuffer()));
     bw.push(await time(() => sharp(file).greyscale().toColourspace('b-w').jpeg(RENDER_JPEG).toBuffer()));
     ratio.push(r[i] / g[i]);
@@ -194,6 +287,7 @@ export default async function run(record: Record): Promise<void> {
   record('render_ratio', median(ratio), 'x');
   record('greyscale_bw_24mp_ms', median(bw), 'ms');
   record('render_ratio_bw', median(ratioBw), 'x');
+  record('render_main_stall_ms', median(stall), 'ms');
   // the same look again: its table comes from the server's cache
   const cached = await buildRenderTable(photoToneModel(composeLook(benchLook()), t.upsample), 8, 8);
   const warm: number[] = [];
@@ -209,6 +303,7 @@ export default async function run(record: Record): Promise<void> {
   record('greyscale_png16_24mp_ms', median(g16), 'ms');
   record('render_ratio_png16', median(r16.map((x, i) => x / g16[i])), 'x');
   await noise(record);
+  await photos(record);
   const peak = childPeak('render', file);
   const greyPeak = childPeak('greyscale', file);
   record('render_peak_rss_mb', peak.peakMb, 'MB');

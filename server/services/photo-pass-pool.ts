@@ -1,96 +1,218 @@
 /**
- * A second thread for full-resolution renders. sharp decodes and encodes on its own threads; the pass is
- * JavaScript, so the main thread shares it with one worker: the worker takes the bottom half of the
- * pixels (with a look's lazily filled exact table, shared/photo/exact-lut.ts, or a 16-bit plan).
- * The worker runs the very same functions (passed as their source text, so it needs no TypeScript
- * loader: they refer to nothing outside their arguments and each other); data reaches it through SharedArrayBuffers.
- * Any failure (no worker, an error in it) answers false and the caller does the work itself.
+ * The render workers: the whole pass of a full-resolution render runs in two worker threads, never on the
+ * main thread, so the API keeps answering while a photo renders (before, the main thread did half of a
+ * large pass and all of a small one: up to a second without answering).
+ * - The lead worker decodes the photo with sharp (on sharp's own threads; the pixels stay in the worker),
+ *   and renders the top half of a large image, or all of a small one;
+ * - the other worker renders the bottom half, from a copy the lead makes in shared memory; while the lead
+ *   decodes, both compute the look's exposure at every node of the upsampling table (half each) for the
+ *   lazily filled 2²⁴ table.
+ * Each grey code is written over its own pixel (the decoded input and the output are never held at once),
+ * and the lead encodes them: the main thread gets the encoded file.
+ * The workers run the very same functions as the main thread (passed as their source text, so they need
+ * no TypeScript loader: they refer to nothing outside their arguments and each other); tables reach them in
+ * shared memory (SharedArrayBuffers are shared, not copied, when posted), small ones are copied.
+ * A pass the other worker cannot do, the lead does; when the workers fail otherwise (RenderWorkerError, or
+ * no worker can run) photo-render.ts renders on the main thread as before. A photo sharp cannot read throws
+ * sharp's own error, as on the main thread.
  */
+import { createRequire } from 'node:module';
 import { Worker } from 'node:worker_threads';
-import { applyLut16, type GreyBuffer, type LutPlan16 } from '../../shared/photo/apply-lut';
-import { applyExactLut, exactCode, type ExactLut } from '../../shared/photo/exact-lut';
+import { applyLut16, type LutPlan16 } from '../../shared/photo/apply-lut';
+import { applyExactLut, applyExactSparse, exactCode, newBlock, type ExactColours, type ExactLut, type SparseColours } from '../../shared/photo/exact-lut';
+import { exposuresRange, type LazyNodeExposures } from '../../shared/spectral/node-spectra';
+import { sharpInput } from './srgb-reader';
 
-/** Images smaller than this are rendered on one thread, pixels. */
+/**
+ * Images smaller than this are rendered by the lead worker alone, pixels. (Sharing a 0.25-megapixel
+ * render between both workers was measured slower: both meet the same new colours at once and compute
+ * the same node exposures twice.)
+ */
 export const PARALLEL_MIN_PIXELS = 2_000_000;
-/** Largest staging copy of the worker's pixels, bytes (kept for reuse); larger images render on one thread. */
+/** Largest staging copy of the second worker's pixels, bytes (kept for reuse); larger images render in the lead worker alone. */
 const KEEP_STAGING_BYTES = 160 * 1024 * 1024;
 
 const WORKER_SOURCE = `
-const { parentPort } = require('node:worker_threads');
+const { parentPort, workerData } = require('node:worker_threads');
 // the TypeScript loader may wrap inner functions as __name(fn, "name"); the worker runs plain JS
 const __name = (f) => f;
 const exactCode = ${exactCode.toString()};
 const applyExactLut = ${applyExactLut.toString()};
+const newBlock = ${newBlock.toString()};
+const applyExactSparse = ${applyExactSparse.toString()};
 const applyLut16 = ${applyLut16.toString()};
-const typed = { u8: Uint8Array, u16: Uint16Array, u32: Uint32Array, i32: Int32Array, f32: Float32Array, f64: Float64Array };
-const revive = (o) => {
-  const out = {};
-  for (const [k, v] of Object.entries(o)) out[k] = v && v.sab instanceof SharedArrayBuffer ? new typed[v.type](v.sab) : v;
-  return out;
-};
-parentPort.on('message', (m) => {
-  try {
-    const src = m.bits === 16 ? new Uint16Array(m.src, 0, m.srcLength) : new Uint8Array(m.src, 0, m.srcLength);
-    const dst = (m.outBits === 16 ? new Uint16Array(m.dst) : new Uint8Array(m.dst)).subarray(m.from);
-    if (m.op === 'exact8') applyExactLut(revive(m.lut), src, 3, dst, 0, m.to - m.from);
-    else applyLut16(revive(m.plan), src, 3, dst, 0, m.to - m.from);
-    parentPort.postMessage({ ok: true });
-  } catch (e) {
-    parentPort.postMessage({ ok: false, message: String((e && e.message) || e) });
+const exposuresRange = ${exposuresRange.toString()};
+let sharp = null;
+const photos = new Map();
+// a staging buffer no render holds, kept for the next large one (allocating and faulting in 36 MB costs)
+let spare = null;
+// decodes as server/services/srgb-reader.ts srgbReader and photo-render.ts decodeSrgb do (the same sharp calls)
+async function decode(m) {
+  sharp ??= require(workerData.sharpPath);
+  let s = sharp(m.input, m.sharpOptions).rotate().flatten({ background: '#ffffff' });
+  if (m.bits === 16 && m.hasProfile) s = s.withIccProfile('srgb', { attach: false });
+  const { data, info } = await (m.bits === 16 ? s.toColourspace('rgb16').raw({ depth: 'ushort' }) : s.toColourspace('srgb').raw()).toBuffer({ resolveWithObject: true });
+  if (info.channels !== 3) throw new Error('decoded to ' + info.channels + ' channels, expected 3');
+  // an even offset, so 16-bit values (input or output) can be read and written in place
+  const bytes = data.byteOffset % 2 === 0 ? data : Uint8Array.from(data);
+  const src = m.bits === 16 ? new Uint16Array(bytes.buffer, bytes.byteOffset, bytes.length / 2) : bytes;
+  const n = info.width * info.height;
+  const p = { src, bytes, n, width: info.width, height: info.height, staging: null };
+  photos.set(m.photo, p);
+  let bottom = null;
+  if (n >= m.splitMin) {
+    const from = Math.floor(n / 2);
+    const part = src.subarray(from * 3, n * 3);
+    if (part.byteLength <= m.keepStaging) {
+      const sab = spare && spare.byteLength >= part.byteLength ? spare : new SharedArrayBuffer(part.byteLength);
+      if (sab === spare) spare = null;
+      p.staging = sab;
+      new Uint8Array(sab, 0, part.byteLength).set(new Uint8Array(part.buffer, part.byteOffset, part.byteLength));
+      bottom = { sab, length: part.length, from };
+    }
   }
+  return { width: info.width, height: info.height, bottom };
+}
+// the grey codes of pixels [from, to) written over their own pixels, as the pass goes (pixel j's code
+// lands before any byte of pixel j + 1: the decoded input and the output are never held at once)
+function greyOver(buffer, byteOffset, outBits, length) {
+  return outBits === 16 ? new Uint16Array(buffer, byteOffset, length) : new Uint8Array(buffer, byteOffset, length);
+}
+function pass(m) {
+  const p = photos.get(m.photo);
+  const k = m.to - m.from;
+  let src;
+  let dst;
+  if (m.staged) {
+    src = m.bits === 16 ? new Uint16Array(m.staged.sab, 0, m.staged.length) : new Uint8Array(m.staged.sab, 0, m.staged.length);
+    dst = greyOver(m.staged.sab, 0, m.outBits, k);
+  } else {
+    if (!p) throw new Error('no pixels for this render');
+    src = p.src.subarray(m.from * 3, m.to * 3);
+    dst = greyOver(p.bytes.buffer, p.bytes.byteOffset + m.from * (m.outBits / 8), m.outBits, k);
+  }
+  if (m.op === 'exact8') applyExactLut(m.lut, src, 3, dst, 0, k);
+  else if (m.op === 'sparse') applyExactSparse(m.colours, m.sparse, src, 3, dst, 0, k);
+  else applyLut16(m.plan, src, 3, dst, 0, k);
+  return m.op === 'sparse' ? { sparse: m.sparse } : {};
+}
+// the other worker's grey codes (over its copy of the bottom half) moved beside the lead's
+function assemble(m) {
+  const p = photos.get(m.photo);
+  const b = m.outBits / 8;
+  p.bytes.set(new Uint8Array(m.staged.sab, 0, (m.to - m.from) * b), m.from * b);
+  return {};
+}
+// a photo's pixels dropped, its staging buffer kept for the next large render
+function drop(photo) {
+  const p = photos.get(photo);
+  photos.delete(photo);
+  if (p && p.staging && (!spare || spare.byteLength < p.staging.byteLength)) spare = p.staging;
+  return p;
+}
+// encodes the grey codes (as photo-render.ts encodeGrey does), or hands them over; the pixels are dropped
+async function finish(m) {
+  const p = drop(m.photo);
+  const grey = greyOver(p.bytes.buffer, p.bytes.byteOffset, m.outBits, p.n);
+  if (!m.format) return { grey: grey.slice() };
+  sharp ??= require(workerData.sharpPath);
+  const raw = { width: p.width, height: p.height, channels: 1 };
+  const data = await (m.format === 'jpeg' ? sharp(grey, { raw }).toColourspace('b-w').jpeg(m.jpeg) : sharp(grey, { raw }).toColourspace('grey16').png(m.png)).toBuffer();
+  return { data };
+}
+async function handle(m) {
+  if (m.op === 'decode') return decode(m);
+  if (m.op === 'release') return drop(m.photo), {};
+  if (m.op === 'assemble') return assemble(m);
+  if (m.op === 'finish') return finish(m);
+  if (m.op === 'nodes') return exposuresRange(m.reflectances, m.weights, m.size, m.values, m.from, m.to), {};
+  return pass(m);
+}
+parentPort.on('message', (m) => {
+  handle(m).then(
+    (r) => parentPort.postMessage({ id: m.id, ok: true, ...r }),
+    (e) => parentPort.postMessage({ id: m.id, ok: false, message: String((e && e.message) || e) }),
+  );
 });`;
 
-interface SharedArray {
-  sab: SharedArrayBuffer;
-  type: 'u8' | 'u16' | 'u32' | 'i32' | 'f32' | 'f64';
+/** The render workers failed (not the photo): the caller renders on its own thread instead. */
+export class RenderWorkerError extends Error {}
+
+/** Whether a typed array lives in shared memory (a worker then sees the same bytes). */
+export function isShared(a: ArrayBufferView): boolean {
+  return a.buffer instanceof SharedArrayBuffer;
 }
 
-function typeOf(a: ArrayBufferView): SharedArray['type'] {
-  if (a instanceof Uint8Array) return 'u8';
-  if (a instanceof Uint16Array) return 'u16';
-  if (a instanceof Uint32Array) return 'u32';
-  if (a instanceof Int32Array) return 'i32';
-  if (a instanceof Float32Array) return 'f32';
-  if (a instanceof Float64Array) return 'f64';
-  throw new Error('unsupported table type');
+/** A copy of a typed array in shared memory (or the array itself when it is there already). */
+export function toShared<T extends Float64Array | Float32Array | Uint8Array | Uint16Array | Uint32Array | Int32Array>(a: T): T {
+  if (isShared(a)) return a;
+  const Ctor = a.constructor as new (b: SharedArrayBuffer) => T;
+  const out = new Ctor(new SharedArrayBuffer(a.byteLength));
+  out.set(a as never);
+  return out;
 }
 
-/** The typed array in shared memory (copied once if it is not there already). */
-function shared(a: ArrayBufferView): SharedArray {
-  if (a.buffer instanceof SharedArrayBuffer && a.byteOffset === 0 && a.byteLength === a.buffer.byteLength) return { sab: a.buffer, type: typeOf(a) };
-  const sab = new SharedArrayBuffer(a.byteLength);
-  new Uint8Array(sab).set(new Uint8Array(a.buffer, a.byteOffset, a.byteLength));
-  return { sab, type: typeOf(a) };
-}
-
-/** An object's typed arrays as shared arrays (cached per object). */
-const sharedObjects = new WeakMap<object, Record<string, unknown>>();
-function shareObject(o: object): Record<string, unknown> {
-  let s = sharedObjects.get(o);
+/** An object with its typed arrays in shared memory (copied once; cached per object), so posting it copies no table. */
+const sharedObjects = new WeakMap<object, object>();
+export function shareObject<T extends object>(o: T): T {
+  let s = sharedObjects.get(o) as T | undefined;
   if (!s) {
-    s = Object.fromEntries(Object.entries(o).map(([k, v]) => [k, ArrayBuffer.isView(v) ? shared(v) : v]));
+    s = Object.fromEntries(Object.entries(o).map(([k, v]) => [k, ArrayBuffer.isView(v) && !(v instanceof DataView) ? toShared(v as Uint8Array) : v])) as T;
     sharedObjects.set(o, s);
   }
   return s;
 }
 
-class PassPool {
-  /** jobs the worker completed (for tests and diagnostics) */
-  runs = 0;
+/**
+ * Lazy node exposures whose values and flags live in shared memory, so a worker filling them fills the
+ * look's own (the values computed so far kept: they are the same bits).
+ */
+export function sharedNodes(lazy: LazyNodeExposures): LazyNodeExposures {
+  if (isShared(lazy.values) && isShared(lazy.done) && isShared(lazy.reflectances)) return lazy;
+  let reflectances = sharedReflectances.get(lazy.reflectances);
+  if (!reflectances) sharedReflectances.set(lazy.reflectances, (reflectances = toShared(lazy.reflectances)));
+  return { ...lazy, values: toShared(lazy.values), done: toShared(lazy.done), reflectances };
+}
+/** Upsampling tables not loaded in shared memory (built by hand, as tests do), copied there once each. */
+const sharedReflectances = new WeakMap<Float32Array, Float32Array>();
+
+/** The decoded photo in the lead worker: its size, and its bottom half in shared memory when asked for. */
+export interface DecodedInWorker {
+  photo: number;
+  width: number;
+  height: number;
+  bottom: { sab: SharedArrayBuffer; length: number; from: number } | null;
+}
+
+interface Reply {
+  id: number;
+  ok: boolean;
+  message?: string;
+  [k: string]: unknown;
+}
+
+class RenderWorker {
   private worker: Worker | null = null;
-  private broken = false;
-  private staging: SharedArrayBuffer | null = null;
+  broken = false;
+  private next = 1;
+  private waiting = new Map<number, (r: Reply) => void>();
 
   private get(): Worker | null {
     if (this.broken) return null;
     if (!this.worker) {
       try {
-        this.worker = new Worker(WORKER_SOURCE, { eval: true });
-        this.worker.unref();
-        this.worker.on('error', () => {
-          this.broken = true;
-          this.worker = null;
+        const sharpPath = createRequire(import.meta.url).resolve('sharp');
+        const w = new Worker(WORKER_SOURCE, { eval: true, workerData: { sharpPath } });
+        w.unref();
+        w.on('message', (r: Reply) => {
+          const done = this.waiting.get(r.id);
+          this.waiting.delete(r.id);
+          if (this.waiting.size === 0) w.unref();
+          done?.(r);
         });
+        w.on('error', () => this.fail(w));
+        w.on('exit', () => this.fail(w));
+        this.worker = w;
       } catch {
         this.broken = true;
         return null;
@@ -99,59 +221,123 @@ class PassPool {
     return this.worker;
   }
 
-  private post(message: object): Promise<boolean> {
+  /** A worker that errs or exits is not used again; what it was doing answers not-ok. */
+  private fail(w: Worker) {
+    if (this.worker !== w) return;
+    this.broken = true;
+    this.worker = null;
+    for (const done of this.waiting.values()) done({ id: 0, ok: false, message: 'the render worker stopped' });
+    this.waiting.clear();
+  }
+
+  /** Sends a job; resolves with the worker's reply (ok false when it failed or there is no worker). */
+  send(message: object): Promise<Reply> {
     const w = this.get();
-    if (!w) return Promise.resolve(false);
-    return new Promise<boolean>((resolve) => {
-      const onMessage = (m: { ok: boolean }) => {
-        w.off('error', onError);
-        if (m.ok) this.runs++;
-        resolve(m.ok);
-      };
-      const onError = () => {
-        w.off('message', onMessage);
-        resolve(false);
-      };
-      w.once('message', onMessage);
-      w.once('error', onError);
+    if (!w) return Promise.resolve({ id: 0, ok: false, message: 'no render worker' });
+    const id = this.next++;
+    return new Promise<Reply>((resolve) => {
+      this.waiting.set(id, resolve);
       w.ref();
-      w.postMessage(message);
-    }).finally(() => w.unref());
+      w.postMessage({ ...message, id });
+    });
   }
+}
 
-  /** A buffer of `n` codes the worker can write into (shared memory unless the worker is gone). */
-  alloc(n: number, bits: 8 | 16): Uint8Array | Uint16Array {
-    if (this.broken) return bits === 8 ? new Uint8Array(n) : new Uint16Array(n);
-    const sab = new SharedArrayBuffer(n * (bits === 8 ? 1 : 2));
-    return bits === 8 ? new Uint8Array(sab) : new Uint16Array(sab);
-  }
+class PassPool {
+  /** passes the workers completed (for tests and diagnostics) */
+  runs = 0;
+  private lead = new RenderWorker();
+  private other = new RenderWorker();
+  private photos = 0;
 
-  /** A zeroed lazy table of 2²⁴ entries both threads can fill (exact-lut.ts): Uint16 for 8-bit output, Uint32 for 16-bit. */
-  allocLazy(bits: 8 | 16): Uint16Array | Uint32Array {
-    const n = 1 << 24;
-    const bytes = n * (bits === 8 ? 2 : 4);
-    const buf = this.broken ? new ArrayBuffer(bytes) : new SharedArrayBuffer(bytes);
-    const codes = bits === 8 ? new Uint16Array(buf) : new Uint32Array(buf);
-    // touch every page now, while the photo decodes: the pass then meets no page faults (about 30 ms
-    // on the 24-megapixel benchmark, measured); writing 0 keeps the table empty
-    for (let i = 0; i < n; i += 1024) codes[i] = 0;
-    return codes;
+  /** Whether the lead worker can take renders (else the caller renders on its own thread). */
+  get available(): boolean {
+    return !this.lead.broken && typeof SharedArrayBuffer !== 'undefined';
   }
 
   /**
-   * Renders pixels [from, n) of `src` on the worker into `dst` (from `alloc`), with a lazy exact table
-   * (8-bit input; its codes from `allocLazy`, or the worker's share is refused) or a 16-bit plan. Resolves false when the worker cannot (the caller then renders them).
+   * A zeroed lazy table of 2²⁴ entries the workers fill (exact-lut.ts): Uint16 for 8-bit output, Uint32 for
+   * 16-bit. Its pages are not touched beforehand: only those holding a colour the photo has become resident
+   * (the 24-megapixel still life and photographs: about 20 of its 32 MB, measured), the price being their
+   * page faults during the pass, shared by the two workers.
    */
-  pass(table: { lut: ExactLut } | { plan: LutPlan16 }, bits: 8 | 16, src: Uint8Array | Uint16Array, dst: GreyBuffer, from: number, n: number): Promise<boolean> {
-    if (!(dst.buffer instanceof SharedArrayBuffer) || !this.get()) return Promise.resolve(false);
-    if ('lut' in table && !(table.lut.codes.buffer instanceof SharedArrayBuffer)) return Promise.resolve(false);
-    const part = src.subarray(from * 3, n * 3);
-    const bytes = part.byteLength;
-    if (bytes > KEEP_STAGING_BYTES) return Promise.resolve(false); // very large images: one thread, no second copy
-    if (!this.staging || this.staging.byteLength < bytes) this.staging = new SharedArrayBuffer(bytes);
-    new Uint8Array(this.staging, 0, bytes).set(new Uint8Array(part.buffer, part.byteOffset, bytes));
-    const common = { bits, src: this.staging, srcLength: bytes / (bits === 16 ? 2 : 1), dst: dst.buffer, outBits: dst instanceof Uint16Array ? 16 : 8, from, to: n };
-    return 'lut' in table ? this.post({ op: 'exact8', lut: shareObject(table.lut), ...common }) : this.post({ op: 'plan16', plan: shareObject(table.plan), ...common });
+  allocLazy(bits: 8 | 16): Uint16Array | Uint32Array {
+    const buf = new SharedArrayBuffer((1 << 24) * (bits === 8 ? 2 : 4));
+    return bits === 8 ? new Uint16Array(buf) : new Uint32Array(buf);
+  }
+
+  /** Every node's exposure of `lazy` (values in shared memory, sharedNodes), half in each worker; false when they cannot. */
+  async fillNodes(lazy: LazyNodeExposures): Promise<boolean> {
+    if (!isShared(lazy.values) || !isShared(lazy.reflectances)) return false;
+    const n = lazy.values.length;
+    const half = Math.floor(n / 8) * 4;
+    const job = { op: 'nodes', reflectances: lazy.reflectances, weights: lazy.weights, size: lazy.size, values: lazy.values };
+    const [a, b] = await Promise.all([this.lead.send({ ...job, from: 0, to: half }), this.other.send({ ...job, from: half, to: n })]);
+    if (!a.ok || !b.ok) return false;
+    lazy.done.fill(1);
+    lazy.complete = true;
+    return true;
+  }
+
+  /**
+   * Decodes a photo in the lead worker (its pixels stay there until `release`; a large one's bottom half
+   * also copied into shared memory for the other worker); throws what the decoder threw.
+   */
+  async decode(input: string | Buffer, bits: 8 | 16, hasProfile: boolean, maxPixels?: number): Promise<DecodedInWorker> {
+    const photo = ++this.photos;
+    // posting a view copies its whole buffer: a Buffer cut from a larger one is posted as its own bytes
+    if (typeof input !== 'string' && input.byteLength !== input.buffer.byteLength) input = Buffer.from(input);
+    const r = await this.lead.send({ op: 'decode', photo, input, bits, hasProfile, sharpOptions: sharpInput(maxPixels), splitMin: PARALLEL_MIN_PIXELS, keepStaging: KEEP_STAGING_BYTES });
+    if (!r.ok) throw new Error(r.message ?? 'the photo could not be decoded');
+    return { photo, width: r.width as number, height: r.height as number, bottom: r.bottom as DecodedInWorker['bottom'] };
+  }
+
+  /** Drops a decoded photo's pixels from the lead worker. */
+  release(photo: number): void {
+    void this.lead.send({ op: 'release', photo });
+  }
+
+  /**
+   * Renders pixels [from, to) of a decoded photo, `outBits` deep, each grey code written over its own
+   * pixel: in the lead worker over its pixels, or in the other one over the bottom half's copy (`staged`;
+   * then `assemble` moves them beside the lead's). With a sparse table, answers the table as the worker left
+   * it (it may have grown). Resolves ok false when the worker could not.
+   */
+  async pass(
+    table: { lut: ExactLut } | { plan: LutPlan16 } | { colours: ExactColours; sparse: SparseColours },
+    d: DecodedInWorker,
+    bits: 8 | 16,
+    outBits: 8 | 16,
+    from: number,
+    to: number,
+    staged: boolean,
+  ): Promise<{ ok: boolean; sparse?: SparseColours }> {
+    const op = 'lut' in table ? 'exact8' : 'plan' in table ? 'plan16' : 'sparse';
+    const shared = 'lut' in table ? { lut: shareObject(table.lut) } : 'plan' in table ? { plan: shareObject(table.plan) } : table;
+    const worker = staged ? this.other : this.lead;
+    const r = await worker.send({ op, ...shared, photo: d.photo, staged: staged ? d.bottom : null, bits, outBits, from, to });
+    if (r.ok) this.runs++;
+    return { ok: r.ok, sparse: r.sparse as SparseColours | undefined };
+  }
+
+  /** Moves the other worker's grey codes of pixels [from, to) beside the lead's. */
+  async assemble(d: DecodedInWorker, outBits: 8 | 16, from: number, to: number): Promise<void> {
+    const r = await this.lead.send({ op: 'assemble', photo: d.photo, staged: d.bottom, outBits, from, to });
+    if (!r.ok) throw new RenderWorkerError(r.message ?? 'the render workers failed');
+  }
+
+  /**
+   * The rendered photo, encoded in the lead worker (`encode`: the format and sharp's settings, as
+   * photo-render.ts encodeGrey encodes), or its grey codes; the lead drops the photo either way.
+   */
+  async finish(d: DecodedInWorker, outBits: 8 | 16, encode: { format: 'jpeg' | 'png16'; jpeg: object; png: object } | null): Promise<{ data?: Buffer; grey?: Uint8Array | Uint16Array }> {
+    const r = await this.lead.send({ op: 'finish', photo: d.photo, outBits, ...(encode ?? { format: null }) });
+    if (!r.ok) throw new RenderWorkerError(r.message ?? 'the render workers failed');
+    if (r.data) {
+      const u = r.data as Uint8Array;
+      return { data: Buffer.from(u.buffer, u.byteOffset, u.byteLength) };
+    }
+    return { grey: r.grey as Uint8Array | Uint16Array };
   }
 }
 

@@ -3,42 +3,66 @@
  * Built once per install (a few seconds) on first use, and cached in DATA_DIR/cache so a restart only
  * reads it; the browser gets its compact form, gzip-compressed once. The file is versioned by the method's version and resolution; a stale or damaged
  * file is rebuilt.
+ * The table is held once, in shared memory: the file is read straight into a SharedArrayBuffer and the
+ * spectra are a view on it (44 MB; reading it into a Buffer, copying the spectra out and keeping the bytes
+ * for the cache file held three copies at the peak and two after), so the photo render workers
+ * (photo-pass-pool.ts) read the same memory without a copy.
  */
 import fs from 'node:fs/promises';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import { buildUpsampleTable, decodeUpsampleTable, encodeUpsampleTable, encodeUpsampleTableCompact, UPSAMPLE_METHOD, type UpsampleTable } from '../../shared/spectral/upsample-table';
 
-let built: { table: UpsampleTable; bytes: Uint8Array } | null = null;
-const perDir = new Map<string, Promise<{ table: UpsampleTable; bytes: Uint8Array }>>();
+let built: { table: UpsampleTable } | null = null;
+const perDir = new Map<string, Promise<{ table: UpsampleTable }>>();
 
 /** File name of the cached table for the current method version and resolution. */
 export function upsampleCacheFile(dataDir: string): string {
   return path.join(dataDir, 'cache', `upsample-srgb-d65-r${UPSAMPLE_METHOD.resolution}-v${UPSAMPLE_METHOD.version}.bin`);
 }
 
-async function readCache(file: string): Promise<{ table: UpsampleTable; bytes: Uint8Array } | null> {
+/** A whole file read into shared memory (one buffer, no intermediate copy). */
+async function readShared(file: string): Promise<Uint8Array> {
+  const fh = await fs.open(file, 'r');
   try {
-    const bytes = new Uint8Array(await fs.readFile(file));
-    const table = decodeUpsampleTable(bytes);
-    return table.resolution === UPSAMPLE_METHOD.resolution ? { table, bytes } : null;
+    const { size } = await fh.stat();
+    const bytes = new Uint8Array(new SharedArrayBuffer(size));
+    for (let at = 0; at < size; ) {
+      const { bytesRead } = await fh.read(bytes, at, size - at, at);
+      if (bytesRead === 0) throw new Error('upsample table: file shorter than its size');
+      at += bytesRead;
+    }
+    return bytes;
+  } finally {
+    await fh.close();
+  }
+}
+
+async function readCache(file: string): Promise<{ table: UpsampleTable } | null> {
+  try {
+    const table = decodeUpsampleTable(await readShared(file), undefined, true);
+    return table.resolution === UPSAMPLE_METHOD.resolution ? { table } : null;
   } catch {
     return null; // missing, stale or damaged
   }
 }
 
-async function load(dataDir: string): Promise<{ table: UpsampleTable; bytes: Uint8Array }> {
+/** A table built in this process, its spectra moved into shared memory (once per install). */
+function inShared(table: UpsampleTable): UpsampleTable {
+  const spectra = new Float32Array(new SharedArrayBuffer(table.spectra.byteLength));
+  spectra.set(table.spectra);
+  return { ...table, spectra };
+}
+
+async function load(dataDir: string): Promise<{ table: UpsampleTable }> {
   const file = upsampleCacheFile(dataDir);
   const cached = await readCache(file);
   if (cached) return (built ??= cached);
-  if (!built) {
-    const table = buildUpsampleTable();
-    built = { table, bytes: encodeUpsampleTable(table) };
-  }
+  built ??= { table: inShared(buildUpsampleTable()) };
   try {
     await fs.mkdir(path.dirname(file), { recursive: true });
     const tmp = `${file}.${process.pid}.tmp`;
-    await fs.writeFile(tmp, built.bytes);
+    await fs.writeFile(tmp, encodeUpsampleTable(built.table));
     await fs.rename(tmp, file);
   } catch {
     // a read-only data dir only costs the rebuild at the next start

@@ -148,11 +148,13 @@ export function exactCode(t: ExactColours, key: number): number {
   if (lazy && !lazy.complete) {
     // the cell's corner nodes not computed yet, each as node-spectra.ts lazyNodeExposure computes it (the
     // same sum in the same order); a z plane's four corners at once when none is done yet (a new region of
-    // colours), their four chains of additions overlapping as in node-spectra.ts nodeExposures
+    // colours), their four chains of additions overlapping as in node-spectra.ts nodeExposures.
+    // Two render workers may fill the same nodes (shared memory): both write the same bits, and a node's
+    // flag is stored (Atomics) after its value and read before it, so a flag seen set means its value is there.
     const { done, reflectances: refl, weights: w, size: S } = lazy;
     for (let dz = 0; dz < 2; dz++) {
       const q = p + dz * sz;
-      if (!done[q] && !done[q + 1] && !done[q + sy] && !done[q + sy + 1]) {
+      if (!Atomics.load(done, q) && !Atomics.load(done, q + 1) && !Atomics.load(done, q + sy) && !Atomics.load(done, q + sy + 1)) {
         const o0 = q * S;
         const o1 = o0 + S;
         const o2 = (q + sy) * S;
@@ -172,17 +174,20 @@ export function exactCode(t: ExactColours, key: number): number {
         vals[q + 1] = m1;
         vals[q + sy] = m2;
         vals[q + sy + 1] = m3;
-        done[q] = done[q + 1] = done[q + sy] = done[q + sy + 1] = 1;
+        Atomics.store(done, q, 1);
+        Atomics.store(done, q + 1, 1);
+        Atomics.store(done, q + sy, 1);
+        Atomics.store(done, q + sy + 1, 1);
         continue;
       }
       for (let c = 0; c < 4; c++) {
         const k = q + (c & 1) + (c & 2 ? sy : 0);
-        if (done[k]) continue;
+        if (Atomics.load(done, k)) continue;
         const o = k * S;
         let m = 0;
         for (let i = 0; i < S; i++) m += w[i] * refl[o + i];
         vals[k] = m;
-        done[k] = 1;
+        Atomics.store(done, k, 1);
       }
     }
   }
@@ -258,15 +263,20 @@ export interface SparseColours {
 /** Entries a sparse table starts with (1,024 blocks); it doubles when full. */
 const SPARSE_START_ENTRIES = 1 << 16;
 
-/** An empty sparse table of colours for `bits` of output. */
-export function sparseColours(bits: OutputBits): SparseColours {
-  return { index: new Int32Array(1 << 18), codes: bits === 8 ? new Uint16Array(SPARSE_START_ENTRIES) : new Uint32Array(SPARSE_START_ENTRIES), used: 64 };
+/** An empty sparse table of colours for `bits` of output (in shared memory with `shared`: for the server's render workers). */
+export function sparseColours(bits: OutputBits, shared = false): SparseColours {
+  const buffer = (bytes: number) => (shared ? new SharedArrayBuffer(bytes) : new ArrayBuffer(bytes));
+  const codes = bits === 8 ? new Uint16Array(buffer(2 * SPARSE_START_ENTRIES)) : new Uint32Array(buffer(4 * SPARSE_START_ENTRIES));
+  return { index: new Int32Array(buffer(4 << 18)), codes, used: 64 };
 }
 
-/** A new block's first entry in `s.codes`, the entries doubled first if full. */
-function newBlock(s: SparseColours): number {
+/** A new block's first entry in `s.codes`, the entries doubled first if full (refers to nothing outside its argument: the server's workers run it from its source). */
+export function newBlock(s: SparseColours): number {
   if (s.used + 64 > s.codes.length) {
-    const more = s.codes instanceof Uint16Array ? new Uint16Array(s.codes.length * 2) : new Uint32Array(s.codes.length * 2);
+    // in shared memory if the table is (the server's render workers fill it for the main thread to keep)
+    const bytes = s.codes.byteLength * 2;
+    const buf = typeof SharedArrayBuffer !== 'undefined' && s.codes.buffer instanceof SharedArrayBuffer ? new SharedArrayBuffer(bytes) : new ArrayBuffer(bytes);
+    const more = s.codes instanceof Uint16Array ? new Uint16Array(buf) : new Uint32Array(buf);
     more.set(s.codes);
     s.codes = more;
   }

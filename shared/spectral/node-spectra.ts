@@ -35,9 +35,17 @@ export function nodeExposures(reflectances: Float32Array, weights: Float64Array)
  * 1.6× faster for the 98,304 nodes).
  */
 function exposuresInto(reflectances: Float32Array, w: Float64Array, out: Float64Array): void {
-  const S = ESTIMATE_SIZE;
-  const n = out.length;
-  let k = 0;
+  exposuresRange(reflectances, w, ESTIMATE_SIZE, out, 0, out.length);
+}
+
+/**
+ * Nodes [from, to) of `exposuresInto` (`S` samples per node): each node's sum the same bits whatever the
+ * range, so two threads filling halves give what one thread gives. Refers to nothing outside its
+ * arguments (the server's render workers run it from its source text, server/services/photo-pass-pool.ts).
+ */
+export function exposuresRange(reflectances: Float32Array, w: Float64Array, S: number, out: Float64Array, from: number, to: number): void {
+  const n = to;
+  let k = from;
   for (; k + 3 < n; k += 4) {
     const o = k * S;
     let m0 = 0;
@@ -85,10 +93,16 @@ export interface LazyNodeExposures {
   complete: boolean;
 }
 
-/** Node exposures of `weights` (working grid), none computed yet. */
+/**
+ * Node exposures of `weights` (working grid), none computed yet; in shared memory when the reflectances
+ * are (the server's render workers then fill the look's own nodes, server/services/photo-pass-pool.ts).
+ */
 export function lazyNodeExposures(reflectances: Float32Array, weights: Float64Array): LazyNodeExposures {
   const n = reflectances.length / ESTIMATE_SIZE;
-  return { values: new Float64Array(n), done: new Uint8Array(n), reflectances, weights: weightsToEstimateGrid(weights), size: ESTIMATE_SIZE, complete: false };
+  const shared = typeof SharedArrayBuffer !== 'undefined' && reflectances.buffer instanceof SharedArrayBuffer;
+  const values = shared ? new Float64Array(new SharedArrayBuffer(n * 8)) : new Float64Array(n);
+  const done = shared ? new Uint8Array(new SharedArrayBuffer(n)) : new Uint8Array(n);
+  return { values, done, reflectances, weights: weightsToEstimateGrid(weights), size: ESTIMATE_SIZE, complete: false };
 }
 
 /** Node k's exposure, computed now if not yet. */

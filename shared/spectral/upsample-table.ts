@@ -190,6 +190,11 @@ export function interpolateAtCell(table: UpsampleTable, values: ArrayLike<number
 
 const HEADER = 16;
 
+/** Whether this machine stores numbers little-endian (the binary forms are; a view needs no byte swapping). */
+function littleEndian(): boolean {
+  return new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
+}
+
 /** The compact form stores each sample less its linear prediction from the two before it (smooth curves leave small numbers). */
 function predict(i: number, p1: number, p2: number): number {
   return i === 0 ? 0 : i === 1 ? p1 : 2 * p1 - p2;
@@ -236,8 +241,12 @@ export function encodeUpsampleTableCompact(table: UpsampleTable): Uint8Array {
   return new Uint8Array(buf);
 }
 
-/** Reads bytes written by either encoder; throws on a wrong magic, size, grid or version. */
-export function decodeUpsampleTable(bytes: Uint8Array, expectVersion: number = UPSAMPLE_METHOD.version): UpsampleTable {
+/**
+ * Reads bytes written by either encoder; throws on a wrong magic, size, grid or version. With `noCopy`, an
+ * exact ("GSU2") table's spectra are a view on `bytes` (no copy: the server reads its 44 MB cache file
+ * into shared memory once and keeps only that, which its render workers read too); otherwise they are copied.
+ */
+export function decodeUpsampleTable(bytes: Uint8Array, expectVersion: number = UPSAMPLE_METHOD.version, noCopy = false): UpsampleTable {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   if (bytes.byteLength < HEADER) throw new Error('upsample table: too short');
   const magic = String.fromCharCode(view.getUint8(0), view.getUint8(1), view.getUint8(2), view.getUint8(3));
@@ -252,19 +261,20 @@ export function decodeUpsampleTable(bytes: Uint8Array, expectVersion: number = U
   const zNodes = new Float32Array(R);
   let o = HEADER;
   for (let i = 0; i < R; i++, o += 4) zNodes[i] = view.getFloat32(o, true);
+  if (magic === 'GSU2' && noCopy && (bytes.byteOffset + o) % 4 === 0 && littleEndian()) {
+    return { resolution: R, version, zNodes, spectra: new Float32Array(bytes.buffer, bytes.byteOffset + o, n) };
+  }
+  // an exact table copied once (a fresh, aligned buffer); a compact one decoded
+  if (magic === 'GSU2') return { resolution: R, version, zNodes, spectra: new Float32Array(bytes.buffer.slice(bytes.byteOffset + o, bytes.byteOffset + o + 4 * n)) };
   const spectra = new Float32Array(n);
-  if (magic === 'GSU2') {
-    spectra.set(new Float32Array(bytes.slice(o, o + 4 * n).buffer));
-  } else {
-    for (let k = 0; k < n; k += ESTIMATE_SIZE) {
-      let p1 = 0;
-      let p2 = 0;
-      for (let i = 0; i < ESTIMATE_SIZE; i++, o += 2) {
-        const q = (predict(i, p1, p2) + view.getUint16(o, true)) & 0xffff;
-        spectra[k + i] = q / 65535;
-        p2 = p1;
-        p1 = q;
-      }
+  for (let k = 0; k < n; k += ESTIMATE_SIZE) {
+    let p1 = 0;
+    let p2 = 0;
+    for (let i = 0; i < ESTIMATE_SIZE; i++, o += 2) {
+      const q = (predict(i, p1, p2) + view.getUint16(o, true)) & 0xffff;
+      spectra[k + i] = q / 65535;
+      p2 = p1;
+      p1 = q;
     }
   }
   return { resolution: R, version, zNodes, spectra };
