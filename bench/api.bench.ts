@@ -3,7 +3,10 @@
  * demo owner, and autocannon (10 s, 50 connections) on two reads every page makes:
  *   GET /api/productions/:pid/looks                     (the role check, the session's user, a list)
  *   GET /api/productions/:pid/boards/:boardId/tones     (the same, and every look composed, every tone)
- * on the demo board with the most swatches.
+ * on the demo board with the most swatches. The tones are computed in the app's compute threads
+ * (server/modules/tones/look-tones.job.ts); the main thread reads the database and answers. Between runs the
+ * bench waits until the server has finished what autocannon left in flight (`settle`), so no run pays for
+ * the one before it.
  *
  * Each is measured twice in the same run: with the caches of server/services/cache.ts off (the "before":
  * membership and user read from the database and every look composed again per request) and on.
@@ -16,6 +19,8 @@
  *   api_looks_rps, api_looks_p50_ms, api_looks_p95_ms, api_looks_p99_ms, api_looks_cores
  *   api_tones_rps, api_tones_p50_ms, api_tones_p95_ms, api_tones_p99_ms, api_tones_cores
  *   api_cores_used
+ *   api_looks_loadgen_cores, api_tones_loadgen_cores (autocannon's own CPU on the same two cores, Linux only:
+ *   what the server could not have had)
  */
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
@@ -64,6 +69,19 @@ interface LoadResult {
   p99: number;
   /** this process's CPU time over the run's wall time */
   cores: number;
+  /** the load generator's own CPU time over the run's wall time (Linux only, else NaN): the share of the two cores the server could not have */
+  loadCores: number;
+}
+
+/** CPU time of process `pid` so far, ms, from /proc (Linux; USER_HZ is 100 there); NaN elsewhere. */
+function cpuOfPid(pid: number | undefined): number {
+  try {
+    const st = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const f = st.slice(st.lastIndexOf(')') + 2).split(' ');
+    return (Number(f[11]) + Number(f[12])) * 10;
+  } catch {
+    return NaN;
+  }
 }
 
 /** Runs the load generator on `url`; this process's CPU use is measured from its "started" to its end. */
@@ -74,6 +92,12 @@ function load(url: string, cookie: string, seconds = DURATION_S): Promise<LoadRe
     let err = '';
     let cpu0: NodeJS.CpuUsage | null = null;
     let t0 = 0;
+    // sampled while it runs: /proc forgets the process at its exit
+    let loadMs = NaN;
+    const sampler = setInterval(() => {
+      const ms = cpuOfPid(child.pid);
+      if (!Number.isNaN(ms)) loadMs = ms;
+    }, 100);
     child.stdout.on('data', (d: Buffer) => (out += d));
     child.stderr.on('data', (d: Buffer) => {
       err += d;
@@ -84,13 +108,27 @@ function load(url: string, cookie: string, seconds = DURATION_S): Promise<LoadRe
     });
     child.on('error', reject);
     child.on('exit', (code) => {
+      clearInterval(sampler);
       const cpu = process.cpuUsage(cpu0 ?? undefined);
       const wall = performance.now() - t0;
       if (code !== 0 || !cpu0) return reject(new Error(`api bench: the load generator failed (${code}): ${err}`));
       const r = JSON.parse(out) as Omit<LoadResult, 'cores'>;
-      resolve({ ...r, cores: (cpu.user + cpu.system) / 1000 / wall });
+      resolve({ ...r, cores: (cpu.user + cpu.system) / 1000 / wall, loadCores: loadMs / wall });
     });
   });
+}
+
+/**
+ * Waits until the server has answered what the last run left in flight (requests autocannon gave up on at
+ * its end still hold compute jobs), so the next run's figures and the app's close start from an idle server.
+ */
+async function settle(pool: { stats(): { busy: number; queued: number } }, maxMs = 30_000): Promise<void> {
+  const end = performance.now() + maxMs;
+  while (performance.now() < end) {
+    const s = pool.stats();
+    if (!s.busy && !s.queued) return;
+    await new Promise((r) => setTimeout(r, 50));
+  }
 }
 
 /** Signs in through the API; the session cookie. */
@@ -138,6 +176,7 @@ export default async function run(record: (name: string, value: number, unit: st
         if (warm.status !== 200) throw new Error(`api bench: ${url} answered ${warm.status}`);
         await warm.arrayBuffer();
         const r = await load(url, cookie);
+        await settle(g.ctx.compute);
         const others = Object.entries(r.statuses).filter(([s]) => s !== '200');
         if (others.length) throw new Error(`api bench: ${name}: not every answer was a 200 (${JSON.stringify(r.statuses)})`);
         // a request still unanswered after autocannon's 10 s is counted as a timeout (and as an error), not in the figures
@@ -148,6 +187,7 @@ export default async function run(record: (name: string, value: number, unit: st
         record(`api_${name}_p95_ms${suffix}`, r.p95, 'ms');
         record(`api_${name}_p99_ms${suffix}`, r.p99, 'ms');
         record(`api_${name}_cores${suffix}`, r.cores, 'cores');
+        if (Number.isFinite(r.loadCores)) record(`api_${name}_loadgen_cores${suffix}`, r.loadCores, 'cores');
         if (cache) after.push(r.cores);
       }
     }

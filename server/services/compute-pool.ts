@@ -10,7 +10,10 @@
  *   Each thread loads the job modules announced with `preload()` (by the routers and services that use
  *   them) as it starts, so a first computation does not wait for the engine to load.
  *   An idle thread does not keep the process alive.
- * - One FIFO queue; past COMPUTE_QUEUE_LIMIT waiting jobs a new one is refused (503, Retry-After).
+ * - One FIFO queue; past COMPUTE_QUEUE_LIMIT waiting jobs a new one is refused (503, Retry-After). The
+ *   computing part of a read (a board's, a swatch's or a sheet's tones and their ranges: `waitUnbounded`)
+ *   waits instead and is not counted: those tones were never refused while they ran on the main thread,
+ *   the open connections bound how many are in flight, and the limit stays for what POSTs ask for.
  * - Payloads and answers are structured clones; the upsampling table is copied once into shared memory
  *   and every thread reads that copy. A job may answer its JSON text, serialised in the thread.
  * - A thread that dies (an uncaught error, an exit) fails the job it held (a 500, and an operator's log
@@ -89,12 +92,25 @@ export interface ComputeStats {
   recent: JobRecord[];
 }
 
+/** Options of one job: the table when its payload estimates colours; `waitUnbounded` for a read's share of work. */
+export interface RunOptions {
+  table?: UpsampleTable | null;
+  /**
+   * wait for a thread however long the queue (never ComputeBusyError): for the computing part of a read
+   * (tones and their ranges), which was never refused while it ran on the main thread and whose number in
+   * flight the connections already bound
+   */
+  waitUnbounded?: boolean;
+}
+
 interface Pending {
   id: number;
   job: ComputeJob<unknown, unknown>;
   payload: unknown;
   table: SharedTable | null;
   json: boolean;
+  /** waits however long the queue, and is not counted against its limit (RunOptions.waitUnbounded) */
+  unbounded: boolean;
   resolve(v: unknown): void;
   reject(e: Error): void;
 }
@@ -131,8 +147,8 @@ export class ComputePool {
   }
 
   /** Runs `job` on `payload` and resolves with its answer; `table` when the payload estimates colours. */
-  run<P, R>(job: ComputeJob<P, R>, payload: P, opts: { table?: UpsampleTable | null } = {}): Promise<R> {
-    return this.submit(job as ComputeJob<unknown, unknown>, payload, opts.table ?? null, false) as Promise<R>;
+  run<P, R>(job: ComputeJob<P, R>, payload: P, opts: RunOptions = {}): Promise<R> {
+    return this.submit(job as ComputeJob<unknown, unknown>, payload, opts.table ?? null, false, opts.waitUnbounded === true) as Promise<R>;
   }
 
   /** Runs `job` and resolves with its answer's JSON text (serialised off the main thread). */
@@ -180,16 +196,23 @@ export class ComputePool {
     await Promise.all(this.slots.map((s) => s.worker?.terminate()));
   }
 
-  private submit(job: ComputeJob<unknown, unknown>, payload: unknown, table: UpsampleTable | null, json: boolean): Promise<unknown> {
+  private submit(job: ComputeJob<unknown, unknown>, payload: unknown, table: UpsampleTable | null, json: boolean, unbounded = false): Promise<unknown> {
     if (this.closed) return Promise.reject(new ComputeClosedError());
     if (this.slots.length === 0) return this.runInPlace(job, payload, table, json);
     return new Promise((resolve, reject) => {
-      const pending: Pending = { id: this.nextId++, job, payload, table: table && shareTable(table), json, resolve, reject };
+      const pending: Pending = { id: this.nextId++, job, payload, table: table && shareTable(table), json, unbounded, resolve, reject };
       const slot = this.idleSlot();
       if (slot) this.dispatch(slot, pending);
-      else if (this.queue.length >= this.opts.queueLimit) reject(new ComputeBusyError());
+      else if (!unbounded && this.boundedWaiting() >= this.opts.queueLimit) reject(new ComputeBusyError());
       else this.queue.push(pending);
     });
+  }
+
+  /** Waiting jobs that count against the queue's limit. */
+  private boundedWaiting(): number {
+    let n = 0;
+    for (const p of this.queue) if (!p.unbounded) n++;
+    return n;
   }
 
   /** The old way (COMPUTE_WORKERS=0): the same job function, on the main thread. */

@@ -8,12 +8,13 @@ import { ToneService } from '../tones/tone.service';
 import { zodToInvalid } from '../../middleware/validate';
 
 /**
- * JSON sent as res.json would, but without Express's ETag: that hashes the whole body (megabytes for a large
- * board) on every request, and a board's tones carry their compute time, so two answers never share a tag and
- * a 304 never comes. The tones are computed per request either way.
+ * JSON text sent as res.json would send its object, but without Express's ETag: that hashes the whole body
+ * (megabytes for a large board) on every request, and a board's tones carry their compute time, so two
+ * answers never share a tag and a 304 never comes. The tones are computed per request either way (their
+ * text mostly written by the compute threads, tone.service.ts `boardTonesJson`).
  */
-function sendWithoutEtag(res: Response, body: unknown): void {
-  res.type('application/json').end(JSON.stringify(body));
+function sendWithoutEtag(res: Response, json: string): void {
+  res.type('application/json').end(json);
 }
 
 /** Boards: viewers read; contributors create and edit their own department's; editors and owners any. */
@@ -29,7 +30,7 @@ export function boardsRouter(ctx: AppContext): Router {
   productionRoute(r, ctx, 'get', '/boards/:boardId/tones', 'viewer', handle(async (req, res) => {
     const q = boardTonesQuerySchema.safeParse(req.query);
     if (!q.success) throw zodToInvalid(q.error);
-    sendWithoutEtag(res, { tones: await tones.boardTones(pid(req), idParam(req.params.boardId, 'Board'), q.data) });
+    sendWithoutEtag(res, await tones.boardTonesJson(pid(req), idParam(req.params.boardId, 'Board'), q.data));
   }));
   itemRoutes(r, ctx, { plural: 'boards', param: 'boardId', key: 'board', what: 'Board', read: 'viewer', write: 'contributor', updateSchema: boardUpdateSchema }, svc);
   return r;

@@ -20,8 +20,8 @@ import { developmentGammaFactor } from '../../../shared/tone/development';
 import { zoneNumeral } from '../../../shared/tone/zones';
 import { getUpsampleTable } from '../../services/upsample-table';
 import { analyseLook } from '../looks/look-analysis';
-import { lookDefinition, prepareToneLooks, toneSwatches } from '../tones/tone.service';
-import { lookTones, type ToneLook } from '../tones/board-tones';
+import { lookDefinition, prepareToneLooks, tonesInPool } from '../tones/tone.service';
+import type { ToneLook } from '../tones/board-tones';
 
 const STEP_LABELS: Record<EiChainStepAnswer['step'], string> = { box: 'Box speed', rating: 'Development / rating', filter: 'Filter factor' };
 
@@ -198,7 +198,7 @@ export class SheetsService {
     const table = await getUpsampleTable(this.dataDir);
     const list = [...rows.values()];
     const { shadowDetailStops, highlightRollOffStops } = toneLook.composed.pipeline;
-    const tones = lookTones(toneLook, toneSwatches(list.map((r) => r.swatch), table), 0, Infinity).tones;
+    const [{ tones }] = await tonesInPool(this.ds, [toneLook], list.map((r) => r.swatch), table, { mergeStops: 0, mergeDeltaE: Infinity });
     const out: SheetSwatch[] = tones.map((t, i) => ({
       swatchId: t.swatchId,
       name: list[i].swatch.name,

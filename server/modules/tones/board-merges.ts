@@ -165,6 +165,8 @@ interface Collector {
   kept: Uint8Array;
   partner: Int32Array;
   key: Float64Array;
+  /** per swatch: the key an offer must beat (its last kept one's once the list is full, else Infinity) */
+  bar: Float64Array;
 }
 
 /** Offer partner `p` (sort key `k`: certain first, then nearest on the medium) to swatch `i`'s kept list. */
@@ -183,6 +185,7 @@ function offer(c: Collector, i: number, p: number, k: number): void {
   }
   c.key[at] = k;
   c.partner[at] = p;
+  if (c.kept[i] === PARTNERS_KEPT) c.bar[i] = c.key[base + PARTNERS_KEPT - 1];
 }
 
 /** What the sweep found: per swatch its merges (only swatches that merge), and the pair counts. */
@@ -209,24 +212,37 @@ export function findMerges(tones: readonly SwatchTone[], mergeStops: number, mer
   const lo = Float64Array.from(sorted, (t) => t.range.plausible[0]);
   const hi = Float64Array.from(sorted, (t) => t.range.plausible[1]);
   const stops = Float64Array.from(sorted, (t) => t.stops);
-  const col: Collector = { count: new Int32Array(n), certain: new Int32Array(n), kept: new Uint8Array(n), partner: new Int32Array(n * PARTNERS_KEPT), key: new Float64Array(n * PARTNERS_KEPT) };
+  const col: Collector = { count: new Int32Array(n), certain: new Int32Array(n), kept: new Uint8Array(n), partner: new Int32Array(n * PARTNERS_KEPT), key: new Float64Array(n * PARTNERS_KEPT), bar: new Float64Array(n).fill(Infinity) };
   // |ΔL*| beyond the threshold times the largest S_L any pair here can have settles a pair with no root at all
   const farL = lab.L.reduce((m, l) => Math.max(m, Math.abs(l - 50)), 0);
   const dLApart = mergeDeltaE * (1 + (0.015 * farL * farL) / Math.sqrt(20 + farL * farL)) * (1 + SETTLE_BAND);
-  const L = lab.L;
-  const { count, certain: certainN, kept, key } = col;
-  const worstAt = PARTNERS_KEPT - 1;
+  const { L, A, B, C, UA, UB } = lab;
+  const settledApart = t2 * (1 + SETTLE_BAND);
+  const { count, certain: certainN, bar } = col;
   let pairs = 0, certainPairs = 0;
   for (let i = 0; i < n; i++) {
     const iLo = lo[i], iHi = hi[i], iL = L[i], iStops = stops[i];
+    // a pair is certain when both ranges lie within mergeStops of i's low end (lo[j] ≥ iLo in this order)
+    const iMayBeCertain = iHi - iLo <= mergeStops;
+    const iA = A[i], iB = B[i], iC = C[i], iUA = UA[i], iUB = UB[i];
     let iCount = 0, iCertain = 0;
     for (let j = i + 1; j < n && lo[j] - iHi <= mergeStops; j++) {
       const dL = L[j] - iL;
       if (!(dL > dLApart || dL < -dLApart)) {
-        const fast = apart(lab, i, j);
-        if (Number.isNaN(fast) ? !(ciede2000(sorted[i].lab, sorted[j].lab) > mergeDeltaE) : fast === 0) continue;
+        // `apart`'s first stage, inline (it settles most pairs, so most pairs cost no call)
+        const Lp = (iL + L[j]) / 2;
+        const cAvg = (iC + C[j]) / 2;
+        const ux0 = iUA + UA[j], uy0 = iUB + UB[j];
+        const uu = ux0 * ux0 + uy0 * uy0, ud = ux0 * C275 + uy0 * S275;
+        const lambda = uu >= U_SUM_SQ_MIN && !(ud > 0 && ud * ud > COS67_SQ * uu) ? LAMBDA_FAR : LAMBDA_NEAR;
+        const da0 = A[j] - iA, db0 = B[j] - iB;
+        const slMax = 1 + 0.015 * Math.abs(Lp - 50), scMax0 = 1 + 0.0675 * cAvg;
+        if (!((dL * dL) / (slMax * slMax) + (lambda * (da0 * da0 + db0 * db0)) / (scMax0 * scMax0) > settledApart)) {
+          const fast = apart(lab, i, j);
+          if (Number.isNaN(fast) ? !(ciede2000(sorted[i].lab, sorted[j].lab) > mergeDeltaE) : fast === 0) continue;
+        }
       }
-      const certain = (hi[j] > iHi ? hi[j] : iHi) - iLo <= mergeStops; // lo[j] ≥ iLo in this order
+      const certain = iMayBeCertain && hi[j] - iLo <= mergeStops;
       iCount++;
       count[j]++;
       if (certain) {
@@ -235,8 +251,8 @@ export function findMerges(tones: readonly SwatchTone[], mergeStops: number, mer
       }
       // certain first (key below 1e9), then nearest on the medium; most offers lose to a full list at once
       const k = (certain ? 0 : 1e9) + Math.abs(iStops - stops[j]);
-      if (kept[i] < PARTNERS_KEPT || k < key[i * PARTNERS_KEPT + worstAt]) offer(col, i, j, k);
-      if (kept[j] < PARTNERS_KEPT || k < key[j * PARTNERS_KEPT + worstAt]) offer(col, j, i, k);
+      if (k < bar[i]) offer(col, i, j, k);
+      if (k < bar[j]) offer(col, j, i, k);
     }
     count[i] += iCount;
     certainN[i] += iCertain;

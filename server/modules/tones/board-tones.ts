@@ -38,19 +38,29 @@ export interface ToneLook {
   name: string;
   resolved: ResolvedLook;
   composed: ComposedLook;
+  /** what the composition depends on (tone.service.ts `pipelineKey`), so a compute thread can keep its own */
+  pipelineKey?: string;
 }
 
+/**
+ * The range (stops before key placement) of swatch `i` through the look, given its exposure m there: by
+ * default from the range cache (tone-ranges.ts `cachedStopsRange`); the compute pool's tones job
+ * (look-tones.job.ts) passes the ranges the main thread already holds instead.
+ */
+export type RangeOf = (i: number, swatch: ResolvedSwatch, exposure: number) => StopsRange;
+
 /** Every swatch through one look: placed on the zones, rendered to a grey, with its range and the merges. */
-export function lookTones(look: ToneLook, swatches: ToneSwatch[], mergeStops: number, mergeDeltaE: number): LookTones {
+export function lookTones(look: Omit<ToneLook, 'resolved'> & { resolved?: ResolvedLook }, swatches: readonly ToneSwatch[], mergeStops: number, mergeDeltaE: number, rangeOf?: RangeOf): LookTones {
   const resolved: ResolvedSwatch[] = swatches.map((s) => ({ name: s.name, reflectance: s.reflectance, estimated: s.estimated }));
   const path = look.composed.path;
+  const range = rangeOf ?? ((_i: number, s: ResolvedSwatch, m: number) => cachedStopsRange(path, s, m));
   const sim = simulateSwatches(path, resolved);
   const tones: SwatchTone[] = sim.swatches.map((r, i) => {
     const by = swatches[i].lightStops ?? 0;
     const lab = by === 0 ? r.lab : xyzToLab([r.xyz[0] * 2 ** by, r.xyz[1] * 2 ** by, r.xyz[2] * 2 ** by], path.white);
     return {
       swatchId: swatches[i].id,
-      ...toneThrough(look.composed, r.stops + by, r.eyeStops + by, movedRange(cachedStopsRange(path, resolved[i], r.exposure), by)),
+      ...toneThrough(look.composed, r.stops + by, r.eyeStops + by, movedRange(range(i, resolved[i], r.exposure), by)),
       lab,
     };
   });

@@ -58,6 +58,45 @@ export function cachedStopsRange(lightPath: LightPath, swatch: { reflectance: Sp
   return r;
 }
 
+/** Values per range in `knownRanges`' packed form: possible low, high, plausible low, high. */
+export const RANGE_VALUES = 4;
+
+/**
+ * The ranges through `lightPath` of the estimated `swatches` that are kept already, packed for a compute
+ * thread (RANGE_VALUES numbers each, in order; NaN for a swatch not estimated or not kept): the tones job
+ * (look-tones.job.ts) reads them there, so the cache stays in this one place, the main thread's.
+ */
+export function knownRanges(lightPath: LightPath, swatches: readonly { reflectance: Spectrum; estimated: boolean }[]): Float64Array {
+  const out = new Float64Array(swatches.length * RANGE_VALUES).fill(NaN);
+  const key = weightsKey(lightPath.mediumWeights);
+  swatches.forEach((s, i) => {
+    const r = s.estimated ? byColour.get(s.reflectance)?.get(key) : undefined;
+    if (r) out.set([r.possible[0], r.possible[1], r.plausible[0], r.plausible[1]], i * RANGE_VALUES);
+  });
+  return out;
+}
+
+/** A packed range (see `knownRanges`) at index `i`, or undefined when it is NaN there. */
+export function unpackRange(packed: Float64Array, i: number): StopsRange | undefined {
+  const o = i * RANGE_VALUES;
+  if (Number.isNaN(packed[o])) return undefined;
+  return { possible: [packed[o], packed[o + 1]], plausible: [packed[o + 2], packed[o + 3]] };
+}
+
+/** Writes `r` packed at index `i` of `packed`. */
+export function packRange(packed: Float64Array, i: number, r: StopsRange): void {
+  packed.set([r.possible[0], r.possible[1], r.plausible[0], r.plausible[1]], i * RANGE_VALUES);
+}
+
+/** Keeps the ranges a compute thread solved (packed as `knownRanges`, NaN where it solved none). */
+export function keepRanges(lightPath: LightPath, swatches: readonly { reflectance: Spectrum; estimated: boolean }[], solved: Float64Array): void {
+  const key = weightsKey(lightPath.mediumWeights);
+  swatches.forEach((s, i) => {
+    const r = s.estimated ? unpackRange(solved, i) : undefined;
+    if (r) keep(s.reflectance, key, r);
+  });
+}
+
 /** The compute pool's 'ranges' job: estimated swatches through one light path, each with its exposure m there. */
 export interface RangesJob {
   lightPath: LightPath;
@@ -92,7 +131,7 @@ export async function prefillRanges(pool: ComputePool | undefined, lightPaths: r
     if (missing.length < POOL_MIN_RANGES) continue;
     const sim = simulateSwatches(lightPath, missing.map((reflectance) => ({ name: '', reflectance, estimated: true })));
     const job: RangesJob = { lightPath, swatches: missing.map((reflectance, i) => ({ reflectance, m: sim.swatches[i].exposure })) };
-    jobs.push(pool.run(rangesJob, job).then((ranges) => missing.forEach((c, i) => keep(c, key, ranges[i]))));
+    jobs.push(pool.run(rangesJob, job, { waitUnbounded: true }).then((ranges) => missing.forEach((c, i) => keep(c, key, ranges[i]))));
   }
   await Promise.all(jobs);
 }
