@@ -43,6 +43,7 @@
  * Also, for the record: the same against a single-band greyscale JPEG (`…_bw`), a render whose look
  * table is cached (as for a look rendered before), and 16-bit PNG output.
  * Medians of interleaved runs; ratios are medians of the ratio within each pair (the machine is shared).
+ * `BENCH_PHOTO_ONLY=small npm run bench -- photo` runs only the small photo's figures (quicker to iterate on).
  */
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
@@ -259,6 +260,8 @@ export async function small(record: Record): Promise<void> {
 
 export default async function run(record: Record): Promise<void> {
   await small(record);
+  // BENCH_PHOTO_ONLY=small: only the small photo's figures (for quicker iteration; the default runs all)
+  if (process.env.BENCH_PHOTO_ONLY === 'small') return;
   const file = await image();
   const t = await tables();
   await render(file, 'jpeg', t); // warm-up

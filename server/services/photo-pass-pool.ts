@@ -8,7 +8,9 @@
  *   decodes, both compute the look's exposure at every node of the upsampling table (half each) for the
  *   lazily filled 2²⁴ table.
  * Each grey code is written over its own pixel (the decoded input and the output are never held at once),
- * and the lead encodes them: the main thread gets the encoded file.
+ * and the lead encodes them: the main thread gets the encoded file. A small photo's pass and encoding are
+ * one job (`renderSmall`), posted as soon as the look's table is ready, which the lead starts once the
+ * photo is decoded: on a render of a few milliseconds the round trips to the main thread counted.
  * The workers run the very same functions as the main thread (passed as their source text, so they need
  * no TypeScript loader: they refer to nothing outside their arguments and each other); tables reach them in
  * shared memory (SharedArrayBuffers are shared, not copied, when posted), small ones are copied.
@@ -44,6 +46,8 @@ const applyLut16 = ${applyLut16.toString()};
 const exposuresRange = ${exposuresRange.toString()};
 let sharp = null;
 const photos = new Map();
+// decodes under way, by photo (a small render's pass waits for its photo here: renderSmall)
+const decoding = new Map();
 // a staging buffer no render holds, kept for the next large one (allocating and faulting in 36 MB costs)
 let spare = null;
 // decodes as server/services/srgb-reader.ts srgbReader and photo-render.ts decodeSrgb do (the same sharp calls)
@@ -120,8 +124,26 @@ async function finish(m) {
   const data = await (m.format === 'jpeg' ? sharp(grey, { raw }).toColourspace('b-w').jpeg(m.jpeg) : sharp(grey, { raw }).toColourspace('grey16').png(m.png)).toBuffer();
   return { data };
 }
+// a small photo's whole render in one job, posted while the photo still decodes: its pass through the
+// look's sparse table once decoded, then its encoding (no round trip to the main thread between them)
+async function renderSmall(m) {
+  const d = decoding.get(m.photo);
+  if (d) await d;
+  const t0 = performance.now();
+  const r = pass({ ...m, op: 'sparse', staged: null, from: 0, to: photos.get(m.photo) ? photos.get(m.photo).n : 0 });
+  const t1 = performance.now();
+  const f = await finish(m);
+  return { ...r, ...f, passMs: t1 - t0, encodeMs: performance.now() - t1 };
+}
 async function handle(m) {
-  if (m.op === 'decode') return decode(m);
+  if (m.op === 'decode') {
+    const d = decode(m);
+    decoding.set(m.photo, d);
+    const forget = () => decoding.delete(m.photo);
+    d.then(forget, forget);
+    return d;
+  }
+  if (m.op === 'renderSmall') return renderSmall(m);
   if (m.op === 'release') return drop(m.photo), {};
   if (m.op === 'assemble') return assemble(m);
   if (m.op === 'finish') return finish(m);
@@ -284,12 +306,51 @@ class PassPool {
    * also copied into shared memory for the other worker); throws what the decoder threw.
    */
   async decode(input: string | Buffer, bits: 8 | 16, hasProfile: boolean, maxPixels?: number): Promise<DecodedInWorker> {
+    return this.startDecode(input, bits, hasProfile, maxPixels).decoded;
+  }
+
+  /**
+   * `decode`, with the photo's number known at once (renderSmall posts a small photo's render before its
+   * decoding is answered).
+   */
+  startDecode(input: string | Buffer, bits: 8 | 16, hasProfile: boolean, maxPixels?: number): { photo: number; decoded: Promise<DecodedInWorker> } {
     const photo = ++this.photos;
     // posting a view copies its whole buffer: a Buffer cut from a larger one is posted as its own bytes
     if (typeof input !== 'string' && input.byteLength !== input.buffer.byteLength) input = Buffer.from(input);
-    const r = await this.lead.send({ op: 'decode', photo, input, bits, hasProfile, sharpOptions: sharpInput(maxPixels), splitMin: PARALLEL_MIN_PIXELS, keepStaging: KEEP_STAGING_BYTES });
-    if (!r.ok) throw new Error(r.message ?? 'the photo could not be decoded');
-    return { photo, width: r.width as number, height: r.height as number, bottom: r.bottom as DecodedInWorker['bottom'] };
+    const decoded = this.lead
+      .send({ op: 'decode', photo, input, bits, hasProfile, sharpOptions: sharpInput(maxPixels), splitMin: PARALLEL_MIN_PIXELS, keepStaging: KEEP_STAGING_BYTES })
+      .then((r) => {
+        if (!r.ok) throw new Error(r.message ?? 'the photo could not be decoded');
+        return { photo, width: r.width as number, height: r.height as number, bottom: r.bottom as DecodedInWorker['bottom'] };
+      });
+    return { photo, decoded };
+  }
+
+  /**
+   * A small 8-bit photo's whole render in the lead worker, in one job posted as soon as the look's table is
+   * ready, without waiting for the photo's decoding to be answered: its pass through the sparse table
+   * (all of it, in the lead) once decoded, then its encoding (`encode`, as `finish`) or its grey codes; the
+   * lead drops the photo. Saves two round trips to the main thread on a render of a few milliseconds.
+   * Resolves ok false when the worker could not (the caller then looks at the decoding's own answer).
+   */
+  async renderSmall(
+    table: { colours: ExactColours; sparse: SparseColours },
+    photo: number,
+    outBits: 8 | 16,
+    encode: { format: 'jpeg' | 'png16'; jpeg: object; png: object } | null,
+  ): Promise<{ ok: boolean; sparse?: SparseColours; data?: Buffer; grey?: Uint8Array | Uint16Array; passMs: number; encodeMs: number }> {
+    const r = await this.lead.send({ op: 'renderSmall', ...table, photo, bits: 8, outBits, ...(encode ?? { format: null }) });
+    if (!r.ok) return { ok: false, passMs: 0, encodeMs: 0 };
+    this.runs++;
+    const u = r.data as Uint8Array | undefined;
+    return {
+      ok: true,
+      sparse: r.sparse as SparseColours | undefined,
+      data: u ? Buffer.from(u.buffer, u.byteOffset, u.byteLength) : undefined,
+      grey: r.grey as Uint8Array | Uint16Array | undefined,
+      passMs: r.passMs as number,
+      encodeMs: r.encodeMs as number,
+    };
   }
 
   /** Drops a decoded photo's pixels from the lead worker. */

@@ -80,7 +80,7 @@ export async function buildRenderTable(model: PhotoToneModel, inputBits: 8 | 16,
 function sharedColours(c: ExactColours): ExactColours {
   if (!passPool.available) return c;
   const nodes = c.nodes ? sharedNodes(c.nodes) : null;
-  return { ...c, lin: toShared(c.lin), zNodes: toShared(c.zNodes), out: toShared(c.out), nodes, nodeM: nodes ? nodes.values : toShared(c.nodeM) };
+  return { ...c, lin: toShared(c.lin), zNodes: toShared(c.zNodes), out: c.out ? toShared(c.out) : null, nodes, nodeM: nodes ? nodes.values : toShared(c.nodeM) };
 }
 
 /**
@@ -221,6 +221,22 @@ function sparsePassInWorker(table: Exact8Table, d: DecodedInWorker, outBits: Out
   return run;
 }
 
+/**
+ * A small photo's whole render (pass through the look's sparse table, then encoding) in the lead worker
+ * (photo-pass-pool.ts renderSmall), after any other pass through the same sparse table (each may hand out
+ * blocks), posted before the photo's decoding is answered.
+ */
+function sparseRenderInWorker(table: Exact8Table, photo: number, outBits: OutputBits, format: RenderFormat | null): ReturnType<typeof passPool.renderSmall> {
+  const run = (table.sparseQueue ?? Promise.resolve()).then(async () => {
+    const sparse = (table.sparse ??= sharedSparse(table.bits));
+    const r = await passPool.renderSmall({ colours: table.colours, sparse }, photo, outBits, format ? { format, jpeg: RENDER_JPEG, png: RENDER_PNG } : null);
+    if (r.ok && r.sparse && !table.lut) table.sparse = r.sparse; // it may have grown
+    return r;
+  });
+  table.sparseQueue = run.catch(() => false);
+  return run;
+}
+
 /** The pass of a decoded photo in the workers: a large one split between both. */
 async function passInWorkers(req: Omit<RenderRequest, 'format'>, table: RenderTable, making: Promise<ExactLut> | null, d: DecodedInWorker, outBits: OutputBits): Promise<boolean> {
   const n = d.width * d.height;
@@ -247,7 +263,8 @@ async function renderInWorkers(req: Omit<RenderRequest, 'format'>, outBits: Outp
   const t0 = performance.now();
   const report = req.onProgress ?? (() => {});
   report({ stage: 'decoding', progress: 0 });
-  const decoding = passPool.decode(req.input, req.bitDepth, req.hasProfile, req.maxPixels).then((d) => ({ d, at: performance.now() }));
+  const started = passPool.startDecode(req.input, req.bitDepth, req.hasProfile, req.maxPixels);
+  const decoding = started.decoded.then((d) => ({ d, at: performance.now() }));
   decoding.catch(() => {});
   const header = sharp(req.input).metadata().catch(() => null);
   let finished = false;
@@ -260,6 +277,17 @@ async function renderInWorkers(req: Omit<RenderRequest, 'format'>, outBits: Outp
     const making = table.kind === 'exact8' && (table.lut || large) ? fullTable(table) : null;
     making?.catch(() => {});
     const tableMs = performance.now() - t0;
+    if (table.kind === 'exact8' && !making && !table.making && meta?.width && meta.height) {
+      // a small photo: its pass and encoding posted now, in one job the lead starts once the photo is decoded
+      report({ stage: 'rendering', progress: 0.3 });
+      const small = await sparseRenderInWorker(table, started.photo, outBits, format);
+      const decoded = await decoding; // the photo's own fault (unreadable, too large) throws here
+      if (!small.ok) throw new RenderWorkerError('the render workers failed');
+      finished = true;
+      report({ stage: 'encoding', progress: 0.6 });
+      const total = performance.now() - t0;
+      return { data: small.data, grey: small.grey, width: decoded.d.width, height: decoded.d.height, ms: { decode: decoded.at - t0, table: tableMs, pass: small.passMs, encode: small.encodeMs, total } };
+    }
     const decoded = await decoding;
     const d = decoded.d;
     report({ stage: 'rendering', progress: 0.3 });

@@ -33,14 +33,10 @@ export function toneCurveTable(pipeline: TonePipeline, samples: number = TONE_TA
   const [lo, hi] = TONE_TABLE_STOPS;
   const step = (hi - lo) / (samples - 1);
   const grey = new Float32Array(samples);
-  let offsetStops = 0;
-  for (let i = 0; i < samples; i++) {
-    const s = lo + i * step;
-    const t = pipeline.renderStops(s);
-    grey[i] = t.srgb;
-    if (i === samples - 1) offsetStops = t.stops - s;
-  }
-  return { minStops: lo, step, grey, offsetStops };
+  // the pipeline's grey alone (srgbOfStops: renderStops(s).srgb, the same bits, without the rest of its result)
+  for (let i = 0; i < samples; i++) grey[i] = pipeline.srgbOfStops(lo + i * step);
+  const top = lo + (samples - 1) * step;
+  return { minStops: lo, step, grey, offsetStops: pipeline.stopsAfterKey(top) - top };
 }
 
 /** Output grey (sRGB-encoded 0..1) of a tone `stops` from middle grey (before key placement). */

@@ -23,7 +23,7 @@
  */
 import { FLOOR_STOPS, MIDDLE_GREY } from '../spectral/limits';
 import { srgbDecode } from '../tone/print';
-import { MAX_Q, MIN_STOPS, STOPS_Q, type OutputBits } from '../look/tone-curve-table';
+import { MAX_Q, MIN_STOPS, STOPS_Q, outputCodes, type OutputBits, type ToneCurveTable } from '../look/tone-curve-table';
 import type { GreyBuffer } from './apply-lut';
 import type { PhotoToneModel } from './look-photo-model';
 import { fillNodeExposures, type LazyNodeExposures } from '../spectral/node-spectra';
@@ -46,8 +46,17 @@ export interface ExactLut {
    * touch); null for the full table (every node filled first, nothing more for a worker to compute)
    */
   nodes: LazyNodeExposures | null;
-  /** fixed-point stops → output code (the look's codes, tone-curve-table.ts outputCodes) */
-  out: Uint8Array | Uint16Array;
+  /**
+   * fixed-point stops → output code (the look's codes, tone-curve-table.ts outputCodes); null while only a
+   * few colours are computed (small images: a few thousand of the 32,769 codes are needed, and making them
+   * all costs about as much as the look's whole tone table), each colour's code then computed from `tone`
+   * with outputCodes's own operations (the same code)
+   */
+  out: Uint8Array | Uint16Array | null;
+  /** the look's tone curve (outputCodes's input) */
+  tone: ToneCurveTable;
+  /** the largest output code (255 or 65535) */
+  top: number;
   minStops: number;
   q: number;
   maxQ: number;
@@ -70,7 +79,7 @@ export function exactLut(codes: Uint16Array | Uint32Array, model: PhotoToneModel
  */
 export function filledColours(c: ExactColours): ExactColours {
   if (c.nodes) fillNodeExposures(c.nodes);
-  return { ...c, nodes: null };
+  return { ...c, nodes: null, out: c.out ?? outputCodes(c.tone, c.top === 255 ? 8 : 16) };
 }
 
 /** The per-colour computation of a look and output depth, without a table (small images: applyExactSparse). */
@@ -85,7 +94,10 @@ export function exactColours(model: PhotoToneModel, bits: OutputBits): ExactColo
     // the model's lazily computed exposures when it has them (photoToneModel's do), else all of them
     nodeM: model.nodes ? model.nodes.values : model.nodeM,
     nodes: model.nodes ?? null,
-    out: model.codes(bits),
+    // made when a full table needs them (filledColours); a small render computes the few it needs
+    out: null,
+    tone: model.tone,
+    top: bits === 8 ? 255 : 65535,
     minStops: MIN_STOPS,
     q: STOPS_Q,
     maxQ: MAX_Q,
@@ -147,14 +159,25 @@ export function exactCode(t: ExactColours, key: number): number {
   const lazy = t.nodes;
   if (lazy && !lazy.complete) {
     // the cell's corner nodes not computed yet, each as node-spectra.ts lazyNodeExposure computes it (the
-    // same sum in the same order); a z plane's four corners at once when none is done yet (a new region of
-    // colours), their four chains of additions overlapping as in node-spectra.ts nodeExposures.
+    // same sum in the same order); a z plane's corners four at once when two or more of them are missing
+    // (those already done computed again: the same bits), their four chains of additions overlapping as
+    // in node-spectra.ts nodeExposures (two nodes in four chains cost less than two in one chain each).
     // Two render workers may fill the same nodes (shared memory): both write the same bits, and a node's
     // flag is stored (Atomics) after its value and read before it, so a flag seen set means its value is there.
-    const { done, reflectances: refl, weights: w, size: S } = lazy;
+    // `seen` is this thread's own copy of the flags it has read set or set itself (never shared), so a node
+    // costs one shared-memory read per thread, not one per colour that touches it (Atomics.load is not cheap).
+    const { done, seen, reflectances: refl, weights: w, size: S } = lazy;
     for (let dz = 0; dz < 2; dz++) {
       const q = p + dz * sz;
-      if (!Atomics.load(done, q) && !Atomics.load(done, q + 1) && !Atomics.load(done, q + sy) && !Atomics.load(done, q + sy + 1)) {
+      if (seen[q] & seen[q + 1] & seen[q + sy] & seen[q + sy + 1]) continue;
+      let missing = 0;
+      for (let c = 0; c < 4; c++) {
+        const k = q + (c & 1) + (c & 2 ? sy : 0);
+        if (seen[k]) continue;
+        if (Atomics.load(done, k)) seen[k] = 1;
+        else missing++;
+      }
+      if (missing > 1) {
         const o0 = q * S;
         const o1 = o0 + S;
         const o2 = (q + sy) * S;
@@ -178,16 +201,22 @@ export function exactCode(t: ExactColours, key: number): number {
         Atomics.store(done, q + 1, 1);
         Atomics.store(done, q + sy, 1);
         Atomics.store(done, q + sy + 1, 1);
+        seen[q] = 1;
+        seen[q + 1] = 1;
+        seen[q + sy] = 1;
+        seen[q + sy + 1] = 1;
         continue;
       }
+      if (missing === 0) continue;
       for (let c = 0; c < 4; c++) {
         const k = q + (c & 1) + (c & 2 ? sy : 0);
-        if (Atomics.load(done, k)) continue;
+        if (seen[k]) continue;
         const o = k * S;
         let m = 0;
         for (let i = 0; i < S; i++) m += w[i] * refl[o + i];
         vals[k] = m;
         Atomics.store(done, k, 1);
+        seen[k] = 1;
       }
     }
   }
@@ -198,7 +227,21 @@ export function exactCode(t: ExactColours, key: number): number {
   const m = (c00 * (1 - fy) + c01 * fy) * (1 - fz) + (c10 * (1 - fy) + c11 * fy) * fz;
   const stops = m > 0 ? Math.max(t.floorStops, Math.log2(m / t.middleGrey)) : t.floorStops;
   const qv = ((stops - t.minStops) * t.q + 0.5) | 0;
-  return t.flag | t.out[qv < 0 ? 0 : qv > t.maxQ ? t.maxQ : qv];
+  const qc = qv < 0 ? 0 : qv > t.maxQ ? t.maxQ : qv;
+  if (t.out) return t.flag | t.out[qc];
+  // outputCodes's entry qc (tone-curve-table.ts: greyOfStops at MIN_STOPS + qc / STOPS_Q, rounded), the same operations
+  const tone = t.tone;
+  const tg = tone.grey;
+  const last = tg.length - 1;
+  const xt = (t.minStops + qc / t.q - tone.minStops) / tone.step;
+  let grey: number;
+  if (!(xt > 0)) grey = tg[0];
+  else if (xt >= last) grey = tg[last];
+  else {
+    const i = Math.floor(xt);
+    grey = tg[i] + (xt - i) * (tg[i + 1] - tg[i]);
+  }
+  return t.flag | Math.round(grey * t.top);
 }
 
 /** Renders pixels [from, to) of 8-bit interleaved RGB(A) `src` (alpha ignored) into `dst`, one grey code a pixel, filling the table on the way. */

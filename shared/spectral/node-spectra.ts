@@ -84,6 +84,12 @@ export interface LazyNodeExposures {
   readonly values: Float64Array;
   /** 1 where values[k] has been computed */
   readonly done: Uint8Array;
+  /**
+   * 1 where this thread has seen done[k] set (or set it): its own copy, never in shared memory (a worker
+   * gets a copy with each job posted to it), so shared/photo/exact-lut.ts exactCode reads each node's shared
+   * flag once per thread with Atomics, not once per colour; a hint only (0 = look at done)
+   */
+  readonly seen: Uint8Array;
   readonly reflectances: Float32Array;
   /** the weights on the estimate's grid (ESTIMATE_SIZE values) */
   readonly weights: Float64Array;
@@ -102,7 +108,7 @@ export function lazyNodeExposures(reflectances: Float32Array, weights: Float64Ar
   const shared = typeof SharedArrayBuffer !== 'undefined' && reflectances.buffer instanceof SharedArrayBuffer;
   const values = shared ? new Float64Array(new SharedArrayBuffer(n * 8)) : new Float64Array(n);
   const done = shared ? new Uint8Array(new SharedArrayBuffer(n)) : new Uint8Array(n);
-  return { values, done, reflectances, weights: weightsToEstimateGrid(weights), size: ESTIMATE_SIZE, complete: false };
+  return { values, done, seen: new Uint8Array(n), reflectances, weights: weightsToEstimateGrid(weights), size: ESTIMATE_SIZE, complete: false };
 }
 
 /** Node k's exposure, computed now if not yet. */

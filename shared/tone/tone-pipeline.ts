@@ -125,6 +125,14 @@ export interface TonePipeline {
   render(m: number): ToneResult;
   /** renders a tone given in stops from middle grey before key placement */
   renderStops(stopsBeforeKey: number): ToneResult;
+  /**
+   * renderStops(stopsBeforeKey).srgb alone, the same arithmetic in the same order (so the same bits) without
+   * the rest of the result: for tabulating the tone curve (shared/look/tone-curve-table.ts), 1,025 samples
+   * per look composed
+   */
+  srgbOfStops(stopsBeforeKey: number): number;
+  /** renderStops(stopsBeforeKey).stops alone (stops after key placement, the same bits) */
+  stopsAfterKey(stopsBeforeKey: number): number;
   /** zones 0..X on the curve's log H axis, for charts (empty unless a negative) */
   zoneMarks(): ZoneMark[];
 }
@@ -197,6 +205,20 @@ export function buildTonePipeline(opts: TonePipelineOptions): TonePipeline {
     };
   };
 
+  const floorStops = stopsFromMiddleGrey(M_FLOOR);
+  const log10Of2 = Math.log10(2);
+  const stopsAfterKey = (stopsBeforeKeyGiven: number): number => Math.max(stopsBeforeKeyGiven, floorStops) + offset;
+  // renderStops's grey and its encoding only: the same expressions in the same order (no density of the
+  // print for the result, no zone, numeral, flags or result object)
+  const srgbOfStops = (stopsBeforeKeyGiven: number): number => {
+    const stops = Math.max(stopsBeforeKeyGiven, floorStops) + offset;
+    let grey: number;
+    if (curve && print) grey = printGrey(print, density(curve, logHGrey + stops * log10Of2));
+    else if (display) grey = displayGrey(stops, display, settings.printGrade, settings.printExposureStops);
+    else grey = Math.min(1, MIDDLE_GREY * 2 ** (stops - settings.printExposureStops));
+    return srgbEncodeInline(grey);
+  };
+
   return {
     mediumId: opts.mediumId,
     defaults,
@@ -209,6 +231,8 @@ export function buildTonePipeline(opts: TonePipelineOptions): TonePipeline {
     highlightRollOffStops: highlight,
     render: (m: number) => renderStops(stopsFromMiddleGrey(Math.max(m, M_FLOOR))),
     renderStops,
+    srgbOfStops,
+    stopsAfterKey,
     zoneMarks: () => {
       const c = curve;
       if (!c) return [];
@@ -218,6 +242,19 @@ export function buildTonePipeline(opts: TonePipelineOptions): TonePipeline {
       });
     },
   };
+}
+
+/**
+ * colour.ts srgbEncode (IEC 61966-2-1 encoding, clamped to 0..1) with culori's channel function written
+ * out, the same operations in the same order (so the same bits; tests/unit/tone/tone-pipeline-lean.test.ts
+ * checks it against srgbEncode), without the colour objects culori's converter makes per call: the tone
+ * table encodes 1,025 greys per look composed. srgbEncode stays the one definition everything else calls.
+ */
+export function srgbEncodeInline(linear: number): number {
+  const c = Math.min(1, Math.max(0, linear));
+  const abs = Math.abs(c);
+  if (abs > 0.0031308) return (Math.sign(c) || 1) * (1.055 * Math.pow(abs, 1 / 2.4) - 0.055);
+  return c * 12.92;
 }
 
 function stripUndefined<T extends object>(o: T): Partial<T> {
