@@ -3,7 +3,9 @@
  * demo owner, and autocannon (10 s, 50 connections) on two reads every page makes:
  *   GET /api/productions/:pid/looks                     (the role check, the session's user, a list)
  *   GET /api/productions/:pid/boards/:boardId/tones     (the same, and every look composed, every tone)
- * on the demo board with the most swatches. The tones are computed in the app's compute threads
+ * on the demo board with the most swatches, and (`tones_large`, caches on only) the tones of a board of
+ * LARGE_BOARD_SWATCHES random colours through four looks, where the computing outweighs the HTTP work
+ * and both compute threads are busy. The tones are computed in the app's compute threads
  * (server/modules/tones/look-tones.job.ts); the main thread reads the database and answers. Between runs the
  * bench waits until the server has finished what autocannon left in flight (`settle`), so no run pays for
  * the one before it.
@@ -18,7 +20,10 @@
  * Figures (`_nocache` for the "before"):
  *   api_looks_rps, api_looks_p50_ms, api_looks_p95_ms, api_looks_p99_ms, api_looks_cores
  *   api_tones_rps, api_tones_p50_ms, api_tones_p95_ms, api_tones_p99_ms, api_tones_cores
- *   api_cores_used
+ *   api_tones_large_rps, api_tones_large_p50_ms, …, api_tones_large_cores
+ *   api_cores_used (the most of the "after" runs: the large board's, where the computing endpoint keeps both
+ *   cores busy; on the small demo board the main thread's own HTTP work, ~2–3 ms a request against ~1 ms
+ *   of computing, keeps it near one core)
  *   api_looks_loadgen_cores, api_tones_loadgen_cores (autocannon's own CPU on the same two cores, Linux only:
  *   what the server could not have had)
  */
@@ -31,6 +36,9 @@ import path from 'node:path';
 import { createApp } from '../server/app';
 import { Board } from '../server/db/entities/board.entity';
 import { Production } from '../server/db/entities/production.entity';
+import { Look } from '../server/db/entities/look.entity';
+import { Swatch } from '../server/db/entities/swatch.entity';
+import { resolveSwatchOrigin } from '../server/modules/swatches/swatches.service';
 import { DEMO_PASSWORD, DEMO_PRODUCTION_NAME } from '../server/db/seed';
 import { setCachesEnabled } from '../server/services/cache';
 import { upsampleCacheFile } from '../server/services/upsample-table';
@@ -38,6 +46,15 @@ import { upsampleCacheFile } from '../server/services/upsample-table';
 const DURATION_S = 10;
 const CONNECTIONS = 50;
 const OWNER = 'camera@demo.grisaille.test';
+/** Swatches of the large board (random colours, as in board.bench.ts). */
+const LARGE_BOARD_SWATCHES = 300;
+
+/** Deterministic random colours (a small LCG). */
+function colours(n: number, seed = 20261202): string[] {
+  let s = seed;
+  const next = () => (s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32;
+  return Array.from({ length: n }, () => '#' + [next(), next(), next()].map((v) => Math.round(v * 255).toString(16).padStart(2, '0')).join(''));
+}
 
 /**
  * The load generator, run as `node --input-type=module -e LOAD <url> <cookie> <seconds> <connections>`:
@@ -163,14 +180,21 @@ export default async function run(record: (name: string, value: number, unit: st
     const boards = await g.ctx.ds.getRepository(Board).find({ where: { production: { id: production.id } }, relations: { swatches: true } });
     const board = boards.sort((a, b) => b.swatches.length - a.swatches.length || a.id - b.id)[0];
     const cookie = await signIn(base, OWNER);
+    const looks = await g.ctx.ds.getRepository(Look).find({ where: { production: { id: production.id } }, order: { id: 'ASC' }, take: 4 });
+    const swatchRepo = g.ctx.ds.getRepository(Swatch);
+    const large = await g.ctx.ds.getRepository(Board).save({
+      production, department: 'costume', name: `Bench ${LARGE_BOARD_SWATCHES} × 4`, notes: '', lookIds: looks.map((l) => l.id), mergeStops: 1 / 3, mergeDeltaE: 10,
+      swatches: await swatchRepo.save(colours(LARGE_BOARD_SWATCHES).map((hex, i) => swatchRepo.create({ production, department: 'costume', name: `Bench swatch ${i + 1}`, notes: '', ...resolveSwatchOrigin({ type: 'colour', colour: { space: 'hex', hex } }) }))),
+    });
     const urls = {
       looks: `${base}/api/productions/${production.id}/looks`,
       tones: `${base}/api/productions/${production.id}/boards/${board.id}/tones`,
+      tones_large: `${base}/api/productions/${production.id}/boards/${large.id}/tones`,
     };
-    console.log(`# ${CONNECTIONS} connections, ${DURATION_S} s each; tones of "${board.name}" (${board.swatches.length} swatches × ${board.lookIds.length} looks)`);
+    console.log(`# ${CONNECTIONS} connections, ${DURATION_S} s each; tones of "${board.name}" (${board.swatches.length} swatches × ${board.lookIds.length} looks) and of ${LARGE_BOARD_SWATCHES} random colours × ${looks.length} looks`);
     const after: number[] = [];
     for (const [name, url] of Object.entries(urls)) {
-      for (const cache of [false, true]) {
+      for (const cache of name === 'tones_large' ? [true] : [false, true]) {
         setCachesEnabled(cache);
         const warm = await fetch(url, { headers: { cookie } }); // the table, the ranges, the engine's own caches
         if (warm.status !== 200) throw new Error(`api bench: ${url} answered ${warm.status}`);
