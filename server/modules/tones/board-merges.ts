@@ -87,26 +87,22 @@ const LAMBDA_FAR = 1 - SIN_FAR, LAMBDA_NEAR = 1 - SIN_NEAR;
  * In stages, each cheaper than the full formula, and each exact about its decision:
  * 1. E² = (ΔL'/S_L)² + a form x² + y² + R_T·x·y in x = ΔC'/S_C, y = ΔH'/S_H, at least (1 − |R_T|/2)(x² + y²)
  *    ≥ (1 − |R_T|/2)·|Δ(a', b)|²/S_C² (S_C ≥ S_H), where |R_T| ≤ R_C·sin 2Δθ is small unless the mean hue is
- *    near 275°: bounded below with no root, then with S_L, G and C̄' exact;
+ *    near 275°: bounded below with no root (checked inline by the sweep in `findMerges`, before this is
+ *    called), then with S_L, G and C̄' exact;
  * 3. without any angle: ΔH'² = |Δ(a', b)|² − ΔC'² (algebraically culori's 2√(C₁'C₂')·sin(Δh'/2), squared),
  *    S_H between its values at T's bounds, and the form x² + y² + R_T·x·y between (1 ∓ |R_T|/2)(x² + y²),
  *    where |R_T| ≤ R_C·sin 2Δθ is small unless the mean hue is near 275°;
  * 4. the whole formula, with the mean hue h̄' as the bisector of the two hue directions (culori halves the
  *    shorter arc: the same angle), so T is a polynomial in cos h̄', sin h̄' and only Δθ takes an arctangent.
  */
-function apart(lab: LabArrays, i: number, j: number): number {
+function apartPastFirstBound(lab: LabArrays, i: number, j: number): number {
   const { L, A, B, C, t2 } = lab;
   const dL = L[j] - L[i];
   const Lp = (L[i] + L[j]) / 2;
   const cAvg = (C[i] + C[j]) / 2;
-  // direction of the mean hue, before a* is stretched: is the rotation term's weight small here?
   const ux0 = lab.UA[i] + lab.UA[j], uy0 = lab.UB[i] + lab.UB[j];
   const uu = ux0 * ux0 + uy0 * uy0, ud = ux0 * C275 + uy0 * S275;
   const lambda = uu >= U_SUM_SQ_MIN && !(ud > 0 && ud * ud > COS67_SQ * uu) ? LAMBDA_FAR : LAMBDA_NEAR;
-  const dab2 = (A[j] - A[i]) * (A[j] - A[i]) + (B[j] - B[i]) * (B[j] - B[i]);
-  // 1. no roots at all: S_L ≤ 1 + 0.015·|L̄ − 50|, |Δ(a', b)| ≥ |Δ(a, b)|, S_C ≤ 1 + 0.045·1.5·C̄
-  const slMax = 1 + 0.015 * Math.abs(Lp - 50), scMax0 = 1 + 0.0675 * cAvg;
-  if ((dL * dL) / (slMax * slMax) + (lambda * dab2) / (scMax0 * scMax0) > t2 * (1 + SETTLE_BAND)) return 1;
   const Lpm50 = (Lp - 50) * (Lp - 50);
   const Sl = 1 + (0.015 * Lpm50) / Math.sqrt(20 + Lpm50);
   const l = dL / Sl;
@@ -229,7 +225,7 @@ export function findMerges(tones: readonly SwatchTone[], mergeStops: number, mer
     for (let j = i + 1; j < n && lo[j] - iHi <= mergeStops; j++) {
       const dL = L[j] - iL;
       if (!(dL > dLApart || dL < -dLApart)) {
-        // `apart`'s first stage, inline (it settles most pairs, so most pairs cost no call)
+        // the first stage of `apartPastFirstBound`'s doc, inline (it settles most pairs, so most pairs cost no call)
         const Lp = (iL + L[j]) / 2;
         const cAvg = (iC + C[j]) / 2;
         const ux0 = iUA + UA[j], uy0 = iUB + UB[j];
@@ -237,8 +233,11 @@ export function findMerges(tones: readonly SwatchTone[], mergeStops: number, mer
         const lambda = uu >= U_SUM_SQ_MIN && !(ud > 0 && ud * ud > COS67_SQ * uu) ? LAMBDA_FAR : LAMBDA_NEAR;
         const da0 = A[j] - iA, db0 = B[j] - iB;
         const slMax = 1 + 0.015 * Math.abs(Lp - 50), scMax0 = 1 + 0.0675 * cAvg;
-        if (!((dL * dL) / (slMax * slMax) + (lambda * (da0 * da0 + db0 * db0)) / (scMax0 * scMax0) > settledApart)) {
-          const fast = apart(lab, i, j);
+        // (dL/slMax)² + λ·|Δab|²/scMax0² > t², multiplied through by slMax²·scMax0² (no division; a pair within
+        // rounding of the bound goes on to the exact stages, which decide it the same either way)
+        const sl2 = slMax * slMax, sc2 = scMax0 * scMax0;
+        if (!(dL * dL * sc2 + lambda * (da0 * da0 + db0 * db0) * sl2 > settledApart * sl2 * sc2)) {
+          const fast = apartPastFirstBound(lab, i, j);
           if (Number.isNaN(fast) ? !(ciede2000(sorted[i].lab, sorted[j].lab) > mergeDeltaE) : fast === 0) continue;
         }
       }
