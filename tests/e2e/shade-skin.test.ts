@@ -74,6 +74,8 @@ it('the makeup artist finds the shade of a lip colour for zone IV through the cy
   const before = await order();
   await p.reload();
   await p.getByRole('table', { name: 'Board as a table' }).locator('tbody tr').first().waitFor();
+  // the rows are listed before the tones arrive (computed in the compute threads); the sort by zone needs them
+  await p.getByText(/computed in \d+ ms on the server/).waitFor();
   expect(await p.locator('th[aria-sort="descending"], th[aria-sort="ascending"]').innerText()).toContain(CYAN);
   expect(await order()).toEqual(before);
   const overflow = await p.evaluate(() => {
