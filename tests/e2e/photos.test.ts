@@ -1,6 +1,6 @@
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openSignedIn, shot, useAppAndBrowser } from '../helpers/browser';
+import { openSignedIn, previewPixels, shot, useAppAndBrowser } from '../helpers/browser';
 import { DEMO_SCENES, demoSceneJpeg } from '../../server/db/seed-content/photos';
 
 /** The preview must be at least this wide (issue 5). */
@@ -42,17 +42,7 @@ function summary(name: string, t: Timing[]) {
 }
 
 /** Colour of a canvas pixel at (fx, fy), fractions of its size. */
-function pixelAt(page: Page, fx: number, fy: number) {
-  return page.evaluate(([x, y]) => {
-    const c = document.querySelector('canvas[data-renderer]') as HTMLCanvasElement;
-    const t = document.createElement('canvas');
-    t.width = c.width;
-    t.height = c.height;
-    const ctx = t.getContext('2d')!;
-    ctx.drawImage(c, 0, 0);
-    return Array.from(ctx.getImageData(Math.floor(x * c.width), Math.floor(y * c.height), 1, 1).data.slice(0, 3));
-  }, [fx, fy]);
-}
+const pixelAt = async (page: Page, fx: number, fy: number) => (await previewPixels(page, [[fx, fy]])).rgb[0];
 
 it('a makeup artist uploads a photo, retunes the look live, wipes, compares, renders it and keeps a region read from it as a swatch', async () => {
   const { page, errors, pid } = await openSignedIn(env, 'makeup@demo.grisaille.test', { viewport: { width: 1280, height: 800 } });

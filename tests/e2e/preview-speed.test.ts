@@ -6,7 +6,7 @@
  */
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openSignedIn, shot, useAppAndBrowser } from '../helpers/browser';
+import { openSignedIn, previewPixels, shot, useAppAndBrowser } from '../helpers/browser';
 import { DEMO_SCENES } from '../../server/db/seed-content/photos';
 
 const env = useAppAndBrowser();
@@ -22,18 +22,7 @@ const timings = (page: Page) => page.evaluate(() => (window.__grisaillePreview ?
 const POINTS = Array.from({ length: 63 }, (_, i) => [0.06 + (i % 9) * 0.11, 0.08 + Math.floor(i / 9) * 0.14] as const);
 
 /** RGB of the main preview canvas at each point (and its own size). */
-function pixels(page: Page): Promise<{ width: number; rgb: number[][] }> {
-  return page.evaluate((pts) => {
-    const c = document.querySelector('canvas[data-renderer]') as HTMLCanvasElement;
-    const t = document.createElement('canvas');
-    t.width = c.width;
-    t.height = c.height;
-    const ctx = t.getContext('2d')!;
-    ctx.drawImage(c, 0, 0);
-    const d = ctx.getImageData(0, 0, c.width, c.height).data;
-    return { width: c.width, rgb: pts.map(([x, y]) => { const i = (Math.floor(y * c.height) * c.width + Math.floor(x * c.width)) * 4; return [d[i], d[i + 1], d[i + 2]]; }) };
-  }, POINTS as unknown as [number, number][]);
-}
+const pixels = (page: Page) => previewPixels(page, POINTS);
 
 /**
  * Waits until the canvas shows a resting (full-table) frame of table `key` (any key but `not` when given),

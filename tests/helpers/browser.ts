@@ -153,3 +153,20 @@ export function useAppAndBrowser(): { app: RunningApp; browser: Browser } {
   });
   return env;
 }
+
+/**
+ * RGB of the photo page's main preview canvas (`canvas[data-renderer]`) at points given as fractions of its
+ * size, read through a 2-D copy (a WebGL canvas cannot be read directly); also the canvas's width.
+ */
+export function previewPixels(page: Page, points: readonly (readonly [number, number])[]): Promise<{ width: number; rgb: number[][] }> {
+  return page.evaluate((pts) => {
+    const c = document.querySelector('canvas[data-renderer]') as HTMLCanvasElement;
+    const t = document.createElement('canvas');
+    t.width = c.width;
+    t.height = c.height;
+    const ctx = t.getContext('2d')!;
+    ctx.drawImage(c, 0, 0);
+    const d = ctx.getImageData(0, 0, c.width, c.height).data;
+    return { width: c.width, rgb: pts.map(([x, y]) => { const i = (Math.floor(y * c.height) * c.width + Math.floor(x * c.width)) * 4; return [d[i], d[i + 1], d[i + 2]]; }) };
+  }, points as unknown as [number, number][]);
+}
