@@ -23,6 +23,7 @@ import { stopsRange } from '../../../shared/spectral/compute';
 import type { Spectrum } from '../../../shared/spectral/spectrum';
 import type { LookTones } from '../../../shared/schemas/board';
 import { computeJob, needTable } from '../../services/compute-jobs';
+import { LruCache } from '../../services/cache';
 import { estimatedSpectrum } from './swatch-spectra';
 import { lookTones, type ToneSwatch } from './board-tones';
 import { RANGE_VALUES, packRange, unpackRange } from './tone-ranges';
@@ -71,23 +72,20 @@ export interface LookTonesAnswer {
 /** Looks kept composed in a thread (a few productions' looks, as tone.service.ts keeps them on the main thread). */
 const COMPOSED_KEPT = 200;
 /**
- * Looks composed in this thread, by their content (`pipelineKey`): a pure memo, so it is kept even while
- * the main thread's caches are off (the API bench's "before" still composes every look per request there).
+ * Looks composed in this thread, by their content (`pipelineKey`). The thread's own copy of cache.ts's switch
+ * is not the main thread's: the API bench's "before" (caches off in the main thread) keeps this one, and
+ * `GRISAILLE_NO_CACHE=1` turns both off.
  */
-const composed = new Map<string, ComposedLook>();
+const composed = new LruCache<string, ComposedLook>(COMPOSED_KEPT);
 
 /** Whether the thread can compose `l`: it was sent with its spectra, or its composition is kept. */
-const composable = (l: JobLook) => l.spectra !== null || (l.pipelineKey !== null && composed.has(l.pipelineKey));
+const composable = (l: JobLook) => l.spectra !== null || (l.pipelineKey !== null && composed.get(l.pipelineKey) !== undefined);
 
 function composedLook(l: JobLook): ComposedLook {
   if (l.pipelineKey === null) return composeLook(l.spectra!);
-  let c = composed.get(l.pipelineKey);
-  if (c) {
-    composed.delete(l.pipelineKey); // most recently used last
-  } else {
-    c = composeLook(l.spectra!);
-    if (composed.size >= COMPOSED_KEPT) composed.delete(composed.keys().next().value!);
-  }
+  const kept = composed.get(l.pipelineKey);
+  if (kept) return kept;
+  const c = composeLook(l.spectra!);
   composed.set(l.pipelineKey, c);
   return c;
 }
